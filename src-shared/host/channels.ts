@@ -1,0 +1,18 @@
+/**
+ * The contract's channel names, commands and global name, with no schema
+ * library attached: the sandboxed preload bundles this file alone (a
+ * sandboxed preload can require nothing but Electron). contract.ts checks at
+ * compile time that its map has exactly these channels.
+ */
+export const channelNames = ['app:info', 'demo:overview', 'dialog:choose-open', 'dialog:choose-save', 'file:reveal'] as const;
+export type ChannelName = (typeof channelNames)[number];
+
+/** Commands the host sends to the page (menu items, drag-and-drop). */
+export const hostCommands = ['open-project', 'save-project', 'save-project-as', 'import-workbook', 'open-demo'] as const;
+export type HostCommand = (typeof hostCommands)[number];
+
+/** Name of the global the bridge is exposed as. */
+export const bridgeGlobal = 'tallywiseHost';
+
+/** The IPC channel that carries host commands to the page. */
+export const commandChannel = 'host:command';
