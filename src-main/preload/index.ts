@@ -1,0 +1,17 @@
+import { contextBridge, ipcRenderer } from 'electron';
+import { bridgeGlobal, channelNames, commandChannel, hostCommands, type HostCommand } from '@shared/host/channels';
+
+// Exposes exactly one function per contract channel, plus a listener for
+// host commands. Nothing else of Electron or Node reaches the page.
+const bridge: Record<string, unknown> = {};
+for (const channel of channelNames) {
+  bridge[channel] = (input: unknown) => ipcRenderer.invoke(channel, input);
+}
+bridge['onCommand'] = (listener: (command: HostCommand) => void) => {
+  const handler = (_event: unknown, command: unknown) => {
+    if ((hostCommands as readonly unknown[]).includes(command)) listener(command as HostCommand);
+  };
+  ipcRenderer.on(commandChannel, handler);
+  return () => ipcRenderer.removeListener(commandChannel, handler);
+};
+contextBridge.exposeInMainWorld(bridgeGlobal, Object.freeze(bridge));
