@@ -1,0 +1,29 @@
+export type Stage = 'programme';
+
+const stages: { id: Stage; label: string; hint: string }[] = [
+  { id: 'programme', label: 'Programme', hint: 'Sites, seasons and species in the project' },
+];
+
+/** The column of work stages down the left edge. */
+export function StageRail({ current, onChoose }: { current: Stage; onChoose: (s: Stage) => void }) {
+  return (
+    <nav className="rail" aria-label="Work stages">
+      <ol>
+        {stages.map((s, i) => (
+          <li key={s.id}>
+            <button
+              type="button"
+              className={s.id === current ? 'rail-step is-current' : 'rail-step'}
+              aria-current={s.id === current ? 'step' : undefined}
+              title={s.hint}
+              onClick={() => onChoose(s.id)}
+            >
+              <span className="rail-number">{i + 1}</span>
+              <span>{s.label}</span>
+            </button>
+          </li>
+        ))}
+      </ol>
+    </nav>
+  );
+}
