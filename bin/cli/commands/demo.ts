@@ -1,0 +1,24 @@
+import { resolve } from 'node:path';
+import { writeDemoWorkbooks } from '../../../src-main/demo/write-workbooks';
+import { parseArgs, requireOption } from '../args';
+import type { CliCommand } from '../command';
+
+export const demo: CliCommand = {
+  name: 'demo',
+  summary: 'Write the built-in demo programme (invented, simulated) as season workbooks.',
+  usage: '  tallywise demo --out DIR [--seed N]\n\n  Writes one workbook per season into DIR, with the mess real tally sheets have,\n  and lists the files written.',
+  async run(argv, io) {
+    const args = parseArgs(argv, { values: ['out', 'seed'] });
+    const out = resolve(requireOption(args, 'out', 'the folder to write the workbooks into'));
+    const seedText = args.options.get('seed');
+    const seed = seedText === undefined ? undefined : Number(seedText);
+    if (seed !== undefined && !Number.isInteger(seed)) {
+      io.err(`The seed must be a whole number, not "${seedText}".`);
+      return 2;
+    }
+    const { files, planted } = await writeDemoWorkbooks(out, seed === undefined ? {} : { seed });
+    for (const f of files) io.out(f);
+    io.err(`Wrote ${files.length} workbooks with ${planted.length} planted problems for cleaning practice.`);
+    return 0;
+  },
+};
