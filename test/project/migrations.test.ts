@@ -1,0 +1,94 @@
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { migrateToCurrent, versionOf, type Migration } from '@shared/project/migrations';
+import { parseProjectDocument, ProjectDocumentError } from '@shared/project/document';
+import { CURRENT_FORMAT_VERSION } from '@shared/project/schema';
+import { cellAt } from '@shared/project/sheet-grid';
+
+// Fixture: test/project/fixtures/project-v0.json, a hand-written body in the
+// invented version-0 shape. Expected values are worked by hand from the
+// step's definition in src-shared/project/migrations/v0-to-v1.ts.
+const v0 = JSON.parse(readFileSync(join(__dirname, 'fixtures/project-v0.json'), 'utf8'));
+
+describe('migration v0 -> current', () => {
+  const { doc, fromVersion, steps } = migrateToCurrent(v0);
+  const project = parseProjectDocument(doc);
+
+  it('runs every step and gives a valid current document', () => {
+    expect(fromVersion).toBe(0);
+    expect(steps).toHaveLength(CURRENT_FORMAT_VERSION);
+    expect(project.formatVersion).toBe(CURRENT_FORMAT_VERSION);
+    expect(project.programme.name).toBe('Hillside pasture transects');
+    expect(project.createdAt).toBe('2024-11-02T09:00:00Z');
+  });
+
+  it('packs each sheet into a grid, padding short rows and inferring cell types', () => {
+    const [visits, notes] = project.sources[0].sheets;
+    expect(project.sources[0]).toMatchObject({ id: 's1', fileName: 'transects-2024.xlsx', size: 20480, sha256: '0123456789abcdef'.repeat(4) });
+    expect(visits).toMatchObject({ name: 'Visits', rows: 4, columns: 4 });
+    expect(visits.types).toBe('ssss' + 'ssnn' + 'ss_n' + 's___');
+    expect(cellAt(visits, 2, 3)).toEqual({ text: '50.5', type: 'number' });
+    expect(cellAt(visits, 3, 0)).toEqual({ text: 'T3', type: 'text' });
+    expect(notes).toMatchObject({ rows: 1, columns: 1, texts: ['all visits by one observer'] });
+  });
+
+  it('numbers the edits and puts the cursor after them', () => {
+    expect(project.cleaning.cursor).toBe(2);
+    expect(project.cleaning.nextSeq).toBe(3);
+    expect(project.cleaning.entries).toEqual([
+      { id: 'e1', time: '2024-11-03T10:00:00Z', author: 'J. Doe', kind: 'set-value', recordId: 'f1#Visits#3', field: 'hares', old: null, new: '0' },
+      { id: 'e2', time: '2024-11-03T10:05:00Z', kind: 'exclude', recordIds: ['f1#Visits#4'], reason: 'transect flooded' },
+    ]);
+  });
+
+  it('names the models, marks the chosen one, fills spec defaults, keeps the rest', () => {
+    expect(project.models.map((m) => [m.id, m.name, m.chosen])).toEqual([
+      ['m1', 'Model 1', false],
+      ['m2', 'Model 2', true],
+    ]);
+    expect(project.models[0].spec).toMatchObject({ robust: 'none', predictors: [], offsets: [{ column: 'minutes', log: true }] });
+    expect(project.models[1].spec.site).toEqual({ column: 'transect', effect: 'fixed', quadraturePoints: 9 });
+    expect(project.aggregation).toEqual({ groupBy: ['site', 'season'], count: 'max', effort: 'sum', minVisits: 1 });
+    expect(project.mapping).toEqual({ site: 'transect', count: 'hares', effort: 'minutes' });
+    expect(project.fieldCodeRules).toEqual([
+      { id: 'code-1', status: 'not-surveyed', texts: ['NS'] },
+      { id: 'code-2', status: 'invalid', texts: ['??'], note: 'Read as invalid: the older project said "unclear".' },
+    ]);
+    expect(project.seeds).toEqual({ bootstrap: 42 });
+    expect(project.report).toEqual({ outputFolder: null, species: [] });
+  });
+
+  it('leaves the input object as it was', () => {
+    expect(v0).toEqual(JSON.parse(readFileSync(join(__dirname, 'fixtures/project-v0.json'), 'utf8')));
+  });
+
+  it('reports a malformed old body by its path', () => {
+    const bad = { ...v0, files: [{ ...v0.files[0], bytes: 'many' }] };
+    expect(() => migrateToCurrent(bad)).toThrow(ProjectDocumentError);
+    expect(() => migrateToCurrent(bad)).toThrow(/format version 0 .*files\.0\.bytes/);
+  });
+});
+
+describe('migration runner', () => {
+  const tag = (n: number): Migration => ({ from: n, to: n + 1, summary: `step ${n}`, upgrade: (d) => ({ ...(d as object), formatVersion: n + 1, trail: [...((d as { trail?: number[] }).trail ?? []), n] }) });
+
+  it('runs the steps in version order whatever order they are listed in', () => {
+    const r = migrateToCurrent({ formatVersion: 0 }, [tag(2), tag(0), tag(1)], 3);
+    expect(r.doc).toEqual({ formatVersion: 3, trail: [0, 1, 2] });
+    expect(r.steps).toEqual(['0 -> 1: step 0', '1 -> 2: step 1', '2 -> 3: step 2']);
+  });
+
+  it('starts from the version the body has and does nothing for a current body', () => {
+    expect(migrateToCurrent({ formatVersion: 2 }, [tag(0), tag(1), tag(2)], 3).doc).toEqual({ formatVersion: 3, trail: [2] });
+    expect(migrateToCurrent({ formatVersion: 3 }, [tag(0)], 3).steps).toEqual([]);
+  });
+
+  it('refuses a gap, a newer body and a body without a version', () => {
+    expect(() => migrateToCurrent({ formatVersion: 0 }, [tag(0), tag(2)], 3)).toThrow(/no way to convert format version 1 to 2/);
+    expect(() => migrateToCurrent({ formatVersion: 4 }, [], 3)).toThrow(/newer than 3/);
+    expect(() => migrateToCurrent({ name: 'x' })).toThrow(/does not say which format version/);
+    expect(versionOf({ version: 0 })).toBe(0);
+    expect(versionOf({ formatVersion: 1.5 })).toBeUndefined();
+  });
+});
