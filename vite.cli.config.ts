@@ -20,6 +20,7 @@ export default defineConfig({
     rollupOptions: {
       input: {
         tallywise: resolve(__dirname, 'bin/cli/main.ts'),
+        'fit-worker': resolve(__dirname, 'bin/cli/worker/fit-worker.ts'),
       },
       external: (id) => external.includes(id) || deps.some((d) => id === d || id.startsWith(`${d}/`)),
       output: { format: 'es', entryFileNames: '[name].mjs' },
