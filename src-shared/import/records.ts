@@ -1,0 +1,38 @@
+import type { CountStatus } from './field-codes';
+
+/**
+ * One count: a species at a site on a visit, after mapping and field codes.
+ * Everything keeps its place in the file (sheet, row, column letters) so a
+ * finding or an analysis row can point back at the cell.
+ */
+export interface CountRecord {
+  readonly sheet: string;
+  readonly row: number;
+  /** Letter of the count cell. */
+  readonly column: string;
+  readonly site: string;
+  /** ISO date, or null when there is no date or it could not be read. */
+  readonly date: string | null;
+  readonly dateText: string;
+  readonly season: string;
+  readonly visit: string;
+  readonly species: string;
+  /** The count cell's text as found. */
+  readonly code: string;
+  readonly status: CountStatus;
+  /** The count (or its bound/estimate); null without a number. */
+  readonly count: number | null;
+  /** The rule that read the code: '' for a number cell, 'number-as-text' for a number typed as text, else the field-code rule id. */
+  readonly rule: string;
+  /** Effort in the canonical unit (hours, km, trap-nights ...), null when missing or unreadable. */
+  readonly effort: number | null;
+  readonly effortText: string;
+  /** Area in hectares, null when missing. */
+  readonly area: number | null;
+  readonly observer: string;
+  readonly covariates: Readonly<Record<string, string>>;
+  /** Column letters of the roles, for findings. */
+  readonly columns: Readonly<Partial<Record<'site' | 'date' | 'season' | 'visit' | 'effort' | 'area' | 'observer' | 'species', string>>>;
+  /** True when the count cell holds a formula error (#DIV/0! ...). */
+  readonly formulaError: boolean;
+}
