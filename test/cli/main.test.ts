@@ -16,7 +16,7 @@ describe('tallywise command line', () => {
     const io = collect();
     expect(await main(['help'], io)).toBe(0);
     const text = io.stdout.join('\n');
-    for (const name of ['fit', 'demo']) expect(text).toMatch(new RegExp(`^  ${name}\\s+\\S`, 'm'));
+    for (const name of ['check', 'fit', 'merge', 'demo']) expect(text).toMatch(new RegExp(`^  ${name}\\s+\\S`, 'm'));
     expect(io.stderr).toEqual([]);
   });
 

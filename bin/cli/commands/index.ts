@@ -1,5 +1,8 @@
 import type { CliCommand } from '../command';
+import { check } from './check';
 import { demo } from './demo';
+import { fit } from './fit';
+import { merge } from './merge';
 
 /** Every command, in the order `tallywise help` lists them. */
-export const commands: readonly CliCommand[] = [demo];
+export const commands: readonly CliCommand[] = [check, fit, merge, demo];
