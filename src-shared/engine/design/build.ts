@@ -1,0 +1,287 @@
+/**
+ * Builds the design matrix of a list of spec terms on the rows of a table.
+ *
+ * Coding (shared/cli-contract.md): treatment coding of factors against the
+ * reference level (default: the first level in sorted order of the levels
+ * present in the rows used); interactions are the products of the parts'
+ * columns (a factor part contributes its non-reference dummies, so an
+ * interaction adds the contrasts of a model that also has the main effects);
+ * splines are natural cubic splines as in ./spline.ts. Column names:
+ * `intercept`, `temp`, `habitat=sedge`, `a & b`, `x[ns1]`, `x[ns2]` ...
+ * Linearly dependent columns are dropped (later ones first) with an
+ * `aliased-column` warning.
+ */
+import type { DataTable, TableColumn } from '../../data/table';
+import { requireColumn, sortLevels } from '../../data/table';
+import type { Term } from '../../model/spec';
+import type { Design, Warning } from '../types';
+import { FitInputError } from '../types';
+import { findAliased } from './aliasing';
+import type { SplineKnots } from './spline';
+import { naturalSplineBasis, splineKnots } from './spline';
+
+export interface FactorCoding {
+  readonly kind: 'factor';
+  readonly column: string;
+  /** Levels in sorted order (all levels present in the rows used). */
+  readonly levels: readonly string[];
+  readonly reference: string;
+}
+export interface NumericCoding {
+  readonly kind: 'numeric';
+  readonly column: string;
+}
+export type PartCoding = FactorCoding | NumericCoding;
+
+/** How one term was coded: enough to rebuild the same columns on new rows. */
+export type TermCoding =
+  | PartCoding
+  | { readonly kind: 'interaction'; readonly parts: readonly [PartCoding, PartCoding] }
+  | { readonly kind: 'spline'; readonly column: string; readonly df: number; readonly knots: SplineKnots };
+
+export interface BuildDesignOptions {
+  intercept: boolean;
+  /** 0-based table rows to use, in order (default: every row). */
+  rows?: readonly number[];
+  /** Codings from an earlier build (one per term): reuse its levels and knots, e.g. to predict. */
+  coding?: readonly TermCoding[];
+  /** Drop aliased columns (default true, but false when `coding` is given: new rows keep the fitted columns). */
+  dropAliased?: boolean;
+}
+
+export interface BuiltDesign {
+  design: Design;
+  warnings: Warning[];
+  /** One coding per term, in term order. */
+  levels: TermCoding[];
+  /** Names of the columns dropped as aliased. */
+  aliased: string[];
+}
+
+/** A short name of a term for messages: `temp`, `habitat`, `a & b`. */
+export function termLabel(term: Term): string {
+  return term.type === 'interaction' ? term.columns.join(' & ') : term.column;
+}
+
+/** The `aliased-column` warning for a dropped column of the given term. */
+export function aliasedWarning(column: string, term: string, note = ''): Warning {
+  return {
+    code: 'aliased-column',
+    message: `Column "${column}" (term ${term}) is a linear combination of earlier columns, so its effect cannot be told apart from theirs; it was dropped${note}.`,
+  };
+}
+
+/** Row numbers as people count them (1-based), at most `max` shown. */
+export function rowList(rows: readonly number[], max = 10): string {
+  const shown = rows.slice(0, max).map((r) => String(r + 1));
+  return rows.length > max ? `${shown.join(', ')} and ${rows.length - max} more` : shown.join(', ');
+}
+
+function numericValues(col: TableColumn, rows: readonly number[]): Float64Array {
+  const out = new Float64Array(rows.length);
+  const bad: number[] = [];
+  const blank: number[] = [];
+  for (let i = 0; i < rows.length; i++) {
+    const v = col.values[rows[i]];
+    if (Number.isNaN(v)) (col.texts[rows[i]] === '' ? blank : bad).push(rows[i]);
+    out[i] = v;
+  }
+  if (bad.length) {
+    const sample = col.texts[bad[0]];
+    throw new FitInputError(
+      'not-numeric',
+      `Column "${col.name}" is used as a number, but data row${bad.length > 1 ? 's' : ''} ${rowList(bad)} hold${bad.length > 1 ? '' : 's'} text (e.g. "${sample}"). Correct those cells, exclude the rows, or use the column as a factor.`,
+      bad,
+    );
+  }
+  if (blank.length) {
+    throw new FitInputError(
+      'blank-value',
+      `Column "${col.name}" is blank in data row${blank.length > 1 ? 's' : ''} ${rowList(blank)}. Fill in the value or exclude the rows.`,
+      blank,
+    );
+  }
+  return out;
+}
+
+function factorCoding(col: TableColumn, rows: readonly number[], reference: string | undefined): FactorCoding {
+  const seen = new Set<string>();
+  const blank: number[] = [];
+  for (const r of rows) {
+    const t = col.texts[r];
+    if (t === '') blank.push(r);
+    else seen.add(t);
+  }
+  if (blank.length) {
+    throw new FitInputError(
+      'blank-value',
+      `Column "${col.name}" is blank in data row${blank.length > 1 ? 's' : ''} ${rowList(blank)}. Fill in the value or exclude the rows.`,
+      blank,
+    );
+  }
+  const levels = sortLevels([...seen]);
+  const ref = reference ?? levels[0];
+  if (levels.length && !levels.includes(ref)) {
+    throw new FitInputError(
+      'unknown-reference',
+      `The reference level "${ref}" of factor "${col.name}" does not occur in the rows used. Its levels are: ${levels.map((l) => `"${l}"`).join(', ')}. Choose one of them as the reference.`,
+    );
+  }
+  return { kind: 'factor', column: col.name, levels, reference: ref };
+}
+
+interface Block {
+  names: string[];
+  cols: Float64Array[];
+}
+
+function partBlock(table: DataTable, part: PartCoding, rows: readonly number[]): Block {
+  const col = requireColumn(table, part.column);
+  if (part.kind === 'numeric') return { names: [part.column], cols: [numericValues(col, rows)] };
+  const index = new Map<string, number>();
+  const nonRef = part.levels.filter((l) => l !== part.reference);
+  nonRef.forEach((l, k) => index.set(l, k));
+  const cols = nonRef.map(() => new Float64Array(rows.length));
+  const unknown: number[] = [];
+  for (let i = 0; i < rows.length; i++) {
+    const t = col.texts[rows[i]];
+    const k = index.get(t);
+    if (k !== undefined) cols[k][i] = 1;
+    else if (t !== part.reference) unknown.push(rows[i]);
+  }
+  if (unknown.length) {
+    throw new FitInputError(
+      'unknown-level',
+      `Column "${col.name}" has level "${col.texts[unknown[0]]}" in data row${unknown.length > 1 ? 's' : ''} ${rowList(unknown)}, which the model was not fitted with. Known levels: ${part.levels.map((l) => `"${l}"`).join(', ')}.`,
+      unknown,
+    );
+  }
+  return { names: nonRef.map((l) => `${part.column}=${l}`), cols };
+}
+
+function resolvePart(table: DataTable, terms: readonly Term[], column: string, rows: readonly number[]): PartCoding {
+  const asFactor = terms.find((t) => t.type === 'factor' && t.column === column);
+  if (asFactor && asFactor.type === 'factor') return factorCoding(requireColumn(table, column), rows, asFactor.reference);
+  const asNumeric = terms.find((t) => (t.type === 'numeric' || t.type === 'spline') && t.column === column);
+  const col = requireColumn(table, column);
+  if (asNumeric || col.numeric) return { kind: 'numeric', column };
+  return factorCoding(col, rows, undefined);
+}
+
+function codeTerm(table: DataTable, terms: readonly Term[], term: Term, rows: readonly number[]): TermCoding {
+  switch (term.type) {
+    case 'numeric':
+      return { kind: 'numeric', column: term.column };
+    case 'factor':
+      return factorCoding(requireColumn(table, term.column), rows, term.reference);
+    case 'interaction':
+      return { kind: 'interaction', parts: [resolvePart(table, terms, term.columns[0], rows), resolvePart(table, terms, term.columns[1], rows)] };
+    case 'spline': {
+      const x = numericValues(requireColumn(table, term.column), rows);
+      const set = new Set<number>();
+      for (let i = 0; i < x.length && set.size <= term.df; i++) set.add(x[i]);
+      const distinct = set.size;
+      if (distinct <= term.df) {
+        throw new FitInputError(
+          'spline-too-flexible',
+          `The spline on "${term.column}" asks for ${term.df} degrees of freedom, but the column has only ${distinct} distinct value${distinct === 1 ? '' : 's'} in the rows used. Lower df or use the column as numeric or factor.`,
+        );
+      }
+      return { kind: 'spline', column: term.column, df: term.df, knots: splineKnots(x, term.df) };
+    }
+  }
+}
+
+function termBlock(table: DataTable, coding: TermCoding, rows: readonly number[]): Block {
+  switch (coding.kind) {
+    case 'numeric':
+    case 'factor':
+      return partBlock(table, coding, rows);
+    case 'interaction': {
+      const a = partBlock(table, coding.parts[0], rows);
+      const b = partBlock(table, coding.parts[1], rows);
+      const names: string[] = [];
+      const cols: Float64Array[] = [];
+      // The first part varies fastest (the customary column order, so reference fits line up).
+      for (let k = 0; k < b.cols.length; k++) {
+        for (let j = 0; j < a.cols.length; j++) {
+          const c = new Float64Array(rows.length);
+          const ca = a.cols[j];
+          const cb = b.cols[k];
+          for (let i = 0; i < rows.length; i++) c[i] = ca[i] * cb[i];
+          names.push(`${a.names[j]} & ${b.names[k]}`);
+          cols.push(c);
+        }
+      }
+      return { names, cols };
+    }
+    case 'spline': {
+      const x = numericValues(requireColumn(table, coding.column), rows);
+      const basis = naturalSplineBasis(x, coding.knots);
+      const n = rows.length;
+      const names: string[] = [];
+      const cols: Float64Array[] = [];
+      for (let j = 0; j < coding.df; j++) {
+        names.push(`${coding.column}[ns${j + 1}]`);
+        cols.push(basis.slice(j * n, (j + 1) * n));
+      }
+      return { names, cols };
+    }
+  }
+}
+
+function allRows(n: number): number[] {
+  return Array.from({ length: n }, (_, i) => i);
+}
+
+export function buildDesign(table: DataTable, terms: readonly Term[], opts: BuildDesignOptions): BuiltDesign {
+  const rows = opts.rows ?? allRows(table.nrows);
+  const n = rows.length;
+  const warnings: Warning[] = [];
+  const names: string[] = [];
+  const termOf: number[] = [];
+  const cols: Float64Array[] = [];
+  if (opts.intercept) {
+    names.push('intercept');
+    termOf.push(-1);
+    cols.push(new Float64Array(n).fill(1));
+  }
+  const levels: TermCoding[] = [];
+  terms.forEach((term, ti) => {
+    const coding = opts.coding?.[ti] ?? codeTerm(table, terms, term, rows);
+    levels.push(coding);
+    const block = termBlock(table, coding, rows);
+    if (block.cols.length === 0) {
+      warnings.push({
+        code: 'other',
+        message: `Factor "${termLabel(term)}" has a single level in the rows used, so it adds nothing to the model and was left out.`,
+      });
+    }
+    block.names.forEach((nm, k) => {
+      names.push(nm);
+      termOf.push(ti);
+      cols.push(block.cols[k]);
+    });
+  });
+  const p = cols.length;
+  const data = new Float64Array(n * p);
+  cols.forEach((c, j) => data.set(c, j * n));
+  const aliased: string[] = [];
+  if ((opts.dropAliased ?? !opts.coding) && p > 0 && n > 0) {
+    const drop = findAliased(data, n, p);
+    if (drop.length) {
+      const keep = new Set(allRows(p).filter((j) => !drop.includes(j)));
+      for (const j of drop) {
+        const label = termOf[j] < 0 ? 'intercept' : termLabel(terms[termOf[j]]);
+        aliased.push(names[j]);
+        warnings.push(aliasedWarning(names[j], label));
+      }
+      const keptIdx = [...keep];
+      const data2 = new Float64Array(n * keptIdx.length);
+      keptIdx.forEach((j, k) => data2.set(data.subarray(j * n, (j + 1) * n), k * n));
+      const design: Design = { n, p: keptIdx.length, data: data2, names: keptIdx.map((j) => names[j]), termOf: keptIdx.map((j) => termOf[j]) };
+      return { design, warnings, levels, aliased };
+    }
+  }
+  return { design: { n, p, data, names, termOf }, warnings, levels, aliased };
+}
