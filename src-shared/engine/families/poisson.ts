@@ -1,0 +1,29 @@
+import { logLink } from '../links/log';
+import { logFactorial } from '../math/lgamma';
+import type { Family } from './types';
+import { signedRoot } from './types';
+
+function unitDeviance(y: number, mu: number): number {
+  return y > 0 ? 2 * (y * Math.log(y / mu) - (y - mu)) : 2 * mu;
+}
+
+/** Poisson with log link: V(mu) = mu. */
+export const poissonFamily: Family = {
+  name: 'poisson',
+  link: logLink,
+  variance: (mu) => mu,
+  unitDeviance,
+  devianceResidual: (y, mu) => signedRoot(y, mu, unitDeviance(y, mu)),
+  logLik: (y, mu) => (y > 0 ? y * Math.log(mu) : 0) - mu - logFactorial(y),
+  start: (y) => y + 0.1,
+  hasDispersion: false,
+  theta: null,
+};
+
+/** Quasi-Poisson: Poisson mean and variance function, dispersion estimated (Pearson / df residual). */
+export const quasiPoissonFamily: Family = {
+  ...poissonFamily,
+  name: 'quasipoisson',
+  logLik: null,
+  hasDispersion: true,
+};

@@ -1,0 +1,17 @@
+import type { Link } from './types';
+
+const EPS = 2.220446049250313e-16;
+
+/** The logit link, with mu kept inside (eps, 1 - eps). */
+export const logitLink: Link = {
+  name: 'logit',
+  linkfun: (mu) => Math.log(mu / (1 - mu)),
+  linkinv: (eta) => {
+    const p = eta >= 0 ? 1 / (1 + Math.exp(-eta)) : Math.exp(eta) / (1 + Math.exp(eta));
+    return Math.min(Math.max(p, EPS), 1 - EPS);
+  },
+  muEta: (eta) => {
+    const e = Math.exp(-Math.abs(eta));
+    return Math.max(e / ((1 + e) * (1 + e)), EPS);
+  },
+};
