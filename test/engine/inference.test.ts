@@ -116,3 +116,18 @@ describe('normal tail probabilities', () => {
     expect(twoSidedNormalP(0)).toBe(1);
   });
 });
+
+describe('chi-square upper tail far out', () => {
+  // Reference values from R 4.2.2, stats::pchisq(x, df = 5, lower.tail = FALSE):
+  //   x = 200 -> 2.8406228986415315e-41, x = 4.2 -> 0.52099495343140501.
+  // Also the closed form for odd df = 5 (common practice):
+  //   Q = 2 Q_N(sqrt(x)) + sqrt(2x/pi) e^{-x/2} (1 + x/3).
+  it('keeps relative accuracy where 1 - cdf would be 0', async () => {
+    const { chiSquareUpper, normalUpper } = await import('@shared/engine/math/distributions');
+    const closed = (x: number) => 2 * normalUpper(Math.sqrt(x)) + Math.sqrt((2 * x) / Math.PI) * Math.exp(-x / 2) * (1 + x / 3);
+    const far = chiSquareUpper(200, 5);
+    expect(Math.abs(far - 2.8406228986415315e-41) / 2.8406228986415315e-41).toBeLessThan(1e-9);
+    expect(Math.abs(far - closed(200)) / far).toBeLessThan(1e-9);
+    expect(Math.abs(chiSquareUpper(4.2, 5) - 0.52099495343140501)).toBeLessThan(1e-12);
+  });
+});

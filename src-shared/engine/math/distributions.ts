@@ -1,5 +1,6 @@
 /** Normal and chi-square tail probabilities (jstat, default import: see jstat.d.ts), guarded against NaN. */
 import jStat from 'jstat';
+import gammainc from '@stdlib/math-base-special-gammainc';
 
 /**
  * Upper tail P(Z > z) of the standard normal. Below z = 5 from jstat (whose
@@ -26,12 +27,14 @@ export function normalQuantile(p: number): number {
 }
 
 /**
- * Upper tail P(X > x) of a chi-square with df degrees of freedom; for one df
- * exactly 2 Q(sqrt(x)), which stays accurate for tiny tails.
+ * Upper tail P(X > x) of a chi-square with df degrees of freedom: for one df
+ * exactly 2 Q(sqrt(x)); otherwise the regularized upper incomplete gamma
+ * Q(df/2, x/2) computed directly (not as 1 - cdf), so tiny tails keep their
+ * relative accuracy.
  */
 export function chiSquareUpper(x: number, df: number): number {
   if (!(x > 0)) return 1;
   if (df === 1) return Math.min(1, 2 * normalUpper(Math.sqrt(x)));
-  const p = 1 - jStat.chisquare.cdf(x, df);
-  return Math.min(1, Math.max(0, p));
+  const p = gammainc(x / 2, df / 2, true, true);
+  return Number.isFinite(p) ? Math.min(1, Math.max(0, p)) : 1 - jStat.chisquare.cdf(x, df);
 }
