@@ -6,6 +6,7 @@ import {
   type ChannelOutput,
   type HostBridge,
   type HostCommand,
+  type HostReply,
 } from '@shared/host/contract';
 
 /** The page's only way to the host: typed calls over the bridge that preload (or a test) installed. */
@@ -16,10 +17,10 @@ function bridge(): HostBridge {
 }
 
 export async function call<C extends Channel>(channel: C, input: ChannelInput<C>): Promise<ChannelOutput<C>> {
-  const fn = bridge()[channel] as (arg: ChannelInput<C>) => Promise<{ ok: true; value: ChannelOutput<C> } | { ok: false; error: { name: string; message: string } }>;
+  const fn = bridge()[channel] as (arg: ChannelInput<C>) => Promise<HostReply<ChannelOutput<C>>>;
   const reply = await fn(input);
   if (reply.ok) return reply.value;
-  throw new HostError(reply.error.name, reply.error.message);
+  throw new HostError(reply.error.name, reply.error.message, reply.error.code);
 }
 
 export function onHostCommand(listener: (command: HostCommand) => void): () => void {

@@ -4,11 +4,25 @@
  * sandboxed preload can require nothing but Electron). contract.ts checks at
  * compile time that its map has exactly these channels.
  */
-export const channelNames = ['app:info', 'demo:overview', 'dialog:choose-open', 'dialog:choose-save', 'file:reveal'] as const;
+export const channelNames = [
+  'app:info',
+  'demo:overview',
+  'dialog:choose-open',
+  'dialog:choose-save',
+  'file:reveal',
+  'import:list-sheets',
+  'import:read-workbook',
+  'project:new-from-demo',
+  'project:open',
+  'project:save',
+  'project:autosave',
+  'project:check-recovery',
+  'project:discard-recovery',
+] as const;
 export type ChannelName = (typeof channelNames)[number];
 
 /** Commands the host sends to the page (menu items, drag-and-drop). */
-export const hostCommands = ['open-project', 'save-project', 'save-project-as', 'import-workbook', 'open-demo'] as const;
+export const hostCommands = ['open-project', 'save-project', 'save-project-as', 'import-workbook', 'open-demo', 'undo-change', 'redo-change'] as const;
 export type HostCommand = (typeof hostCommands)[number];
 
 /** Name of the global the bridge is exposed as. */

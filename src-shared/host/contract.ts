@@ -1,5 +1,8 @@
 import { z } from 'zod';
 import { channelNames, type ChannelName, type HostCommand } from './channels';
+import { projectDocumentSchema } from '../project/schema';
+import { importedSourceSchema } from '../project/imported-source';
+import { effortUnits } from '../import/units';
 
 export { bridgeGlobal, commandChannel, hostCommands, type HostCommand } from './channels';
 
@@ -28,6 +31,150 @@ export type AppInfo = z.infer<typeof appInfoSchema>;
 const empty = z.object({}).strict();
 const filePath = z.string().min(1, 'a file path is needed');
 
+// ---- Records: import, checks and the project around them ----------------
+
+/**
+ * Which column of a sheet plays which part. Wide sheets list their species
+ * columns (one count column per species); long sheets name one species
+ * column and one count column.
+ */
+export const columnRolesSchema = z
+  .object({
+    site: z.string().min(1),
+    date: z.string().optional(),
+    season: z.string().optional(),
+    visit: z.string().optional(),
+    observer: z.string().optional(),
+    effort: z.string().optional(),
+    effortUnit: z.enum(effortUnits).optional(),
+    speciesColumns: z.array(z.string().min(1)).optional(),
+    species: z.string().optional(),
+    count: z.string().optional(),
+  })
+  .strict();
+export type ColumnRoles = z.infer<typeof columnRolesSchema>;
+
+/** The fields every record carries, in the order the grid shows them. */
+export const recordFields = ['site', 'date', 'season', 'visit', 'observer', 'species', 'count', 'effort', 'status', 'code'] as const;
+export type RecordField = (typeof recordFields)[number];
+/** Fields the analyst may edit in the cleaning grid. */
+export const editableFields = ['site', 'species', 'date', 'count', 'effort'] as const satisfies readonly RecordField[];
+
+/**
+ * One column of values packed into a few strings, so that 200k records cross
+ * the bridge as a dozen values rather than millions (a structured clone or a
+ * test bridge pays per value). Texts: the distinct texts and, comma-joined,
+ * each record's index into them (-1 for none). Numbers: comma-joined, an
+ * empty place for none.
+ */
+export const packedColumnSchema = z.union([
+  z.object({ levels: z.array(z.string()), codes: z.string() }).strict(),
+  z.object({ numbers: z.string() }).strict(),
+]);
+export type PackedColumn = z.infer<typeof packedColumnSchema>;
+
+/** Records as packed columns, all of length `n`; a record's id follows from its source and cell (see recordId). */
+export const recordColumnsSchema = z.object({
+  n: z.number().int().min(0),
+  sourceId: z.string(),
+  sheet: packedColumnSchema,
+  row: packedColumnSchema,
+  /** Letter of the count cell. */
+  column: packedColumnSchema,
+  /** Letters of the visit columns, for pointing at a site, date or effort cell. */
+  fieldColumns: z.record(z.string(), z.string()),
+  values: z.record(z.string(), packedColumnSchema),
+});
+export type RecordColumns = z.infer<typeof recordColumnsSchema>;
+
+/** The stable id of the record of one count cell: `<source>:<sheet>!<column><row>`. */
+export function recordId(sourceId: string, sheet: string, column: string, row: number): string {
+  return `${sourceId}:${sheet}!${column}${row}`;
+}
+
+/** Something a check found in the records: where, what, the fix, and the records it concerns. */
+export const recordFindingSchema = z.object({
+  id: z.string(),
+  code: z.string(),
+  severity: z.enum(['error', 'warning', 'info']),
+  file: z.string().optional(),
+  sheet: z.string().optional(),
+  row: z.number().optional(),
+  column: z.string().optional(),
+  /** The record field the finding is about; none for a whole-visit finding such as a repeated row. */
+  field: z.string().optional(),
+  message: z.string(),
+  fix: z.string(),
+  recordIds: z.array(z.string()),
+  /** A name variant's suggested merge. */
+  merge: z.object({ field: z.string(), from: z.string(), into: z.string() }).optional(),
+  /** Spreadsheet row this one repeats (repeated visit). */
+  repeats: z.number().optional(),
+});
+export type RecordFinding = z.infer<typeof recordFindingSchema>;
+
+export const sourceSummarySchema = z.object({
+  id: z.string(),
+  fileName: z.string(),
+  sheet: z.string(),
+  size: z.number(),
+  sha256: z.string(),
+  importedAt: z.string(),
+  records: z.number(),
+  /** Unit of the effort column as written (minutes, hours, km ...), when it is known. */
+  effortUnit: z.string().optional(),
+  /** How the columns were mapped: the built-in demo template or the roles given. */
+  mappedBy: z.enum(['demo-template', 'roles', 'guessed']),
+  /** Notes on the layout (titles above the header, notes below), not about single records. */
+  notes: z.array(z.object({ code: z.string(), severity: z.string(), message: z.string(), fix: z.string(), sheet: z.string().optional(), row: z.number().optional() })),
+});
+export type SourceSummary = z.infer<typeof sourceSummarySchema>;
+
+export const importQuestionSchema = z.object({
+  code: z.literal('ambiguous-date-order'),
+  sheet: z.string(),
+  column: z.string(),
+  columnName: z.string(),
+  examples: z.array(z.string()),
+  message: z.string(),
+});
+
+export const loadedSourceSchema = z.object({ summary: sourceSummarySchema, records: recordColumnsSchema, findings: z.array(recordFindingSchema) });
+export type LoadedSource = z.infer<typeof loadedSourceSchema>;
+
+/**
+ * The project document as it crosses the bridge: the stored cells of each
+ * source stay in the main process (which keeps them since the import or the
+ * opening), so only the sources' identities travel.
+ */
+export const sourceRefSchema = importedSourceSchema.omit({ sheets: true });
+export const wireDocumentSchema = projectDocumentSchema.extend({ sources: z.array(sourceRefSchema) });
+export type WireDocument = z.infer<typeof wireDocumentSchema>;
+
+export const openedProjectSchema = z.object({
+  document: wireDocumentSchema,
+  /** Null for a project not yet saved. */
+  path: z.string().nullable(),
+  name: z.string(),
+  sources: z.array(loadedSourceSchema),
+  /** Conversion steps when an older file was opened. */
+  migrationSteps: z.array(z.string()),
+});
+export type OpenedProject = z.infer<typeof openedProjectSchema>;
+
+export const recoveryOfferSchema = z.object({
+  recoveryPath: z.string(),
+  /** The project file the work belongs to; null for a project never saved. */
+  projectPath: z.string().nullable(),
+  savedAt: z.string(),
+  programme: z.string().nullable(),
+  edits: z.number(),
+  problem: z.string().optional(),
+});
+export type RecoveryOffer = z.infer<typeof recoveryOfferSchema>;
+
+const projectPathOrNone = z.object({ path: filePath.nullable() }).strict();
+
 /** Channel name → argument schema and result type. */
 export const hostContract = {
   'app:info': { input: empty, output: appInfoSchema },
@@ -41,6 +188,38 @@ export const hostContract = {
     output: z.object({ path: z.string().nullable() }),
   },
   'file:reveal': { input: z.object({ path: filePath }).strict(), output: z.object({ ok: z.boolean() }) },
+  'import:list-sheets': {
+    input: z.object({ path: filePath }).strict(),
+    output: z.object({ sheets: z.array(z.object({ name: z.string(), hidden: z.boolean() })) }),
+  },
+  'import:read-workbook': {
+    input: z
+      .object({ path: filePath, sheet: z.string().min(1).optional(), dateOrder: z.enum(['dmy', 'mdy']).optional(), roles: columnRolesSchema.optional() })
+      .strict(),
+    /**
+     * `source` is null when something must be answered first, then asked again
+     * with the answer: a date-style question, or (`rolesNeeded`, a message) which
+     * columns play which part, when the headers do not tell.
+     */
+    output: z.object({
+      source: loadedSourceSchema.nullable(),
+      questions: z.array(importQuestionSchema),
+      headers: z.array(z.string()),
+      rolesNeeded: z.string().nullable(),
+    }),
+  },
+  'project:new-from-demo': { input: empty, output: openedProjectSchema },
+  'project:open': { input: z.object({ path: filePath, fromRecovery: z.boolean().optional() }).strict(), output: openedProjectSchema },
+  'project:save': {
+    input: z.object({ path: filePath, document: wireDocumentSchema }).strict(),
+    output: z.object({ path: z.string(), name: z.string(), savedAt: z.string() }),
+  },
+  'project:autosave': {
+    input: z.object({ path: filePath.nullable(), document: wireDocumentSchema }).strict(),
+    output: z.object({ ok: z.boolean() }),
+  },
+  'project:check-recovery': { input: projectPathOrNone, output: z.object({ offer: recoveryOfferSchema.nullable() }) },
+  'project:discard-recovery': { input: projectPathOrNone, output: z.object({ ok: z.boolean() }) },
 } as const satisfies Record<ChannelName, { input: z.ZodType; output: z.ZodType }>;
 
 // Both ways: every listed channel has a schema (above) and every schema is listed (here).
@@ -59,13 +238,15 @@ export const channels: readonly Channel[] = channelNames;
 export interface HostErrorShape {
   name: string;
   message: string;
+  /** A finer stable code where the error class has one (e.g. a project file's 'damaged' or 'newer-version'). */
+  code?: string;
 }
 
 /** What every handler answers: a value, or an error shape (never a thrown object across the bridge). */
 export type HostReply<T> = { ok: true; value: T } | { ok: false; error: HostErrorShape };
 
 export class HostError extends Error {
-  constructor(name: string, message: string) {
+  constructor(name: string, message: string, readonly code?: string) {
     super(message);
     this.name = name;
   }

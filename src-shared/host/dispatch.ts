@@ -21,9 +21,9 @@ export async function dispatchHostCall(services: HostServices, channel: string, 
     const value = await service(parsed.data);
     return { ok: true, value };
   } catch (err) {
-    const e = err as { name?: unknown; message?: unknown };
+    const e = err as { name?: unknown; message?: unknown; code?: unknown };
     const name = typeof e?.name === 'string' && e.name !== 'Error' ? e.name : 'HostFailure';
     const message = typeof e?.message === 'string' && e.message ? e.message : String(err);
-    return { ok: false, error: { name, message } };
+    return { ok: false, error: typeof e?.code === 'string' ? { name, message, code: e.code } : { name, message } };
   }
 }

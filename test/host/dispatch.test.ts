@@ -13,6 +13,7 @@ const services: HostServices = createHostServices({
   shell: {
     reveal: async (p) => {
       if (p === '/boom') throw Object.assign(new Error('The folder /boom is gone.'), { name: 'NotFound' });
+      if (p === '/coded') throw Object.assign(new Error('The project file is damaged.'), { name: 'ProjectFileError', code: 'damaged' });
       return true;
     },
   },
@@ -41,5 +42,7 @@ describe('host dispatch', () => {
   it('turns a service failure into { name, message }', async () => {
     const r = await dispatchHostCall(services, 'file:reveal', { path: '/boom' });
     expect(r).toEqual({ ok: false, error: { name: 'NotFound', message: 'The folder /boom is gone.' } });
+    const coded = await dispatchHostCall(services, 'file:reveal', { path: '/coded' });
+    expect(coded).toEqual({ ok: false, error: { name: 'ProjectFileError', message: 'The project file is damaged.', code: 'damaged' } });
   });
 });
