@@ -1,0 +1,110 @@
+import { createHash } from 'node:crypto';
+import { basename } from 'node:path';
+import { readBytes, readGrids } from '../import/import-file';
+import type { SheetGrid as ReadGrid } from '@shared/import/cells';
+import type { ImportedTable, SourceInfo } from '@shared/import/imported-table';
+import { tableFromGrids } from '@shared/import/table-from-grids';
+import type { DateOrder } from '@shared/import/text-dates';
+import { ImportError } from '@shared/import/import-error';
+import type { ImportedSource } from '@shared/project/imported-source';
+import type { ColumnRoles, LoadedSource } from '@shared/host/contract';
+import { planRoles, type RolePlan } from './column-roles';
+import { reshapeRecords } from './count-records';
+import { checkRecords } from './record-checks';
+import { recordsToColumns } from './record-wire';
+import { readStoredGrid, storeGrid } from './source-cells';
+
+/**
+ * The import service behind `import:read-workbook`: a workbook in, its
+ * records, findings and (when a date style is in doubt) questions out.
+ * It also gives the cells and the mapping the project keeps, from which
+ * `rebuildSource` redoes the same import when a project is opened.
+ */
+export interface SourceMapping {
+  sourceId: string;
+  roles: ColumnRoles;
+  mappedBy: RolePlan['mappedBy'];
+  dateOrder: DateOrder;
+  source: SourceInfo;
+}
+
+export interface ImportedSourceData {
+  loaded: LoadedSource;
+  stored: ImportedSource;
+  mapping: SourceMapping;
+}
+
+export interface WorkbookReading {
+  data: ImportedSourceData | null;
+  questions: ImportedTable['questions'];
+  headers: string[];
+  /** Why the column roles must be chosen by hand (the headers did not tell), or null. */
+  rolesNeeded: string | null;
+}
+
+function loadedFrom(table: ImportedTable, plan: RolePlan, dateOrder: DateOrder, meta: Omit<ImportedSource, 'sheets'>): LoadedSource {
+  const { records, effortUnit } = reshapeRecords(table, plan.roles, meta.id, dateOrder);
+  const findings = checkRecords(records, meta.fileName, plan.roles.effort !== undefined);
+  return {
+    summary: {
+      id: meta.id,
+      fileName: meta.fileName,
+      sheet: table.sheets.join(', '),
+      size: meta.size,
+      sha256: meta.sha256,
+      importedAt: meta.importedAt,
+      records: records.length,
+      effortUnit,
+      mappedBy: plan.mappedBy,
+      notes: table.findings.map((f) => ({ code: f.code, severity: f.severity, message: f.message, fix: f.fix, sheet: f.sheet, row: f.row })),
+    },
+    records: recordsToColumns(records, meta.id),
+    findings,
+  };
+}
+
+export async function readWorkbook(path: string, opts: { sheet?: string; dateOrder?: DateOrder; roles?: ColumnRoles } = {}): Promise<WorkbookReading> {
+  const fileName = basename(path);
+  const bytes = await readBytes(path);
+  const { grids, source } = await readGrids(path, { sheet: opts.sheet });
+  const named: ReadGrid[] = grids.map((g) => ({ ...g, file: fileName }));
+  const first = tableFromGrids(named, source, { dateOrder: opts.dateOrder ?? 'dmy' });
+  const headers = first.columns.map((c) => c.name);
+  let plan: RolePlan;
+  try {
+    plan = planRoles(headers, fileName, opts.roles);
+  } catch (err) {
+    if (!opts.roles && err instanceof ImportError && err.code === 'bad-template') return { data: null, questions: [], headers, rolesNeeded: err.message };
+    throw err;
+  }
+  const dateOrder = opts.dateOrder ?? plan.dateOrder;
+  // Ask about the date style only for the column that holds the dates.
+  const asked = dateOrder ? [] : tableFromGrids(named, source).questions.filter((q) => q.columnName === plan.roles.date);
+  if (asked.length) return { data: null, questions: asked, headers, rolesNeeded: null };
+  const sha256 = createHash('sha256').update(bytes).digest('hex');
+  const meta = { id: sha256.slice(0, 12), fileName, size: bytes.length, sha256, importedAt: new Date().toISOString() };
+  const order = dateOrder ?? 'dmy';
+  const table = order === 'dmy' ? first : tableFromGrids(named, source, { dateOrder: order });
+  return {
+    data: {
+      loaded: loadedFrom(table, plan, order, meta),
+      stored: { ...meta, sheets: grids.map(storeGrid) },
+      mapping: { sourceId: meta.id, roles: plan.roles, mappedBy: plan.mappedBy, dateOrder: order, source },
+    },
+    questions: [],
+    headers,
+    rolesNeeded: null,
+  };
+}
+
+/** Redoes a source's import from the cells the project kept. */
+export function rebuildSource(stored: ImportedSource, mapping: SourceMapping | undefined): LoadedSource {
+  if (!mapping) {
+    throw new ImportError('bad-template', `The project keeps the cells of ${stored.fileName} but not how its columns were mapped; import the workbook again.`, { file: stored.fileName });
+  }
+  const grids = stored.sheets.map((g) => readStoredGrid(g, stored.fileName));
+  const table = tableFromGrids(grids, mapping.source, { dateOrder: mapping.dateOrder });
+  const { sheets: _cells, ...meta } = stored;
+  void _cells;
+  return loadedFrom(table, { roles: mapping.roles, mappedBy: mapping.mappedBy }, mapping.dateOrder, meta);
+}

@@ -1,0 +1,40 @@
+import { recordFields, type PackedColumn, type RecordColumns } from '@shared/host/contract';
+import type { IdentifiedRecord } from './count-records';
+
+/** Records as packed columns for the bridge (the format is described in the contract). */
+export function packColumn(values: readonly (string | number | null)[]): PackedColumn {
+  if (values.every((v) => v === null || typeof v === 'number')) {
+    return { numbers: values.map((v) => (v === null || !Number.isFinite(v as number) ? '' : String(v))).join(',') };
+  }
+  const index = new Map<string, number>();
+  const levels: string[] = [];
+  const codes = values.map((v) => {
+    if (v === null) return -1;
+    const t = String(v);
+    let k = index.get(t);
+    if (k === undefined) {
+      k = levels.length;
+      levels.push(t);
+      index.set(t, k);
+    }
+    return k;
+  });
+  return { levels, codes: codes.join(',') };
+}
+
+export function recordsToColumns(records: readonly IdentifiedRecord[], sourceId: string): RecordColumns {
+  const values: Record<string, PackedColumn> = {};
+  for (const f of recordFields) values[f] = packColumn(records.map((r) => r[f] as string | number | null));
+  const first = records[0];
+  const fieldColumns: Record<string, string> = {};
+  if (first) for (const [k, v] of Object.entries(first.columns)) if (v) fieldColumns[k] = v;
+  return {
+    n: records.length,
+    sourceId,
+    sheet: packColumn(records.map((r) => r.sheet)),
+    row: packColumn(records.map((r) => r.row)),
+    column: packColumn(records.map((r) => r.column)),
+    fieldColumns,
+    values,
+  };
+}
