@@ -1,9 +1,13 @@
 import type { HostServices } from '@shared/host/contract';
 import type { HostEnvironment } from './ports';
 import { demoOverview } from './demo-overview';
+import { listSheets } from '../import/import-file';
+import { readWorkbook } from './record-import';
+import { ProjectSession } from './project-session';
 
 /** All host calls, as plain async functions over the environment's ports. */
 export function createHostServices(env: HostEnvironment): HostServices {
+  const session = new ProjectSession(env.userDataDir);
   return {
     'app:info': async () => ({ name: env.appName, version: env.appVersion, platform: env.platform }),
     'demo:overview': async () => demoOverview(),
@@ -12,5 +16,23 @@ export function createHostServices(env: HostEnvironment): HostServices {
       path: await env.dialogs.chooseSave(title, defaultName, extensions),
     }),
     'file:reveal': async ({ path }) => ({ ok: await env.shell.reveal(path) }),
+    'import:list-sheets': async ({ path }) => ({ sheets: await listSheets(path) }),
+    'import:read-workbook': async ({ path, sheet, dateOrder, roles }) => {
+      const reading = await readWorkbook(path, { sheet, dateOrder, roles });
+      if (reading.data) session.keep(reading.data);
+      return { source: reading.data?.loaded ?? null, questions: reading.questions.map(({ options: _o, examples, ...q }) => (void _o, { ...q, examples: [...examples] })), headers: reading.headers, rolesNeeded: reading.rolesNeeded };
+    },
+    'project:new-from-demo': async () => session.newFromDemo(),
+    'project:open': async ({ path, fromRecovery }) => session.open(path, fromRecovery),
+    'project:save': async ({ path, document }) => session.save(path, document),
+    'project:autosave': async ({ path, document }) => {
+      await session.autosave(path, document);
+      return { ok: true };
+    },
+    'project:check-recovery': async ({ path }) => ({ offer: await session.checkRecovery(path) }),
+    'project:discard-recovery': async ({ path }) => {
+      await session.discardRecovery(path);
+      return { ok: true };
+    },
   };
 }
