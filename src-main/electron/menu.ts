@@ -17,10 +17,24 @@ export function installMenu(win: BrowserWindow, send: (command: HostCommand) => 
       isMac ? { role: 'close' } : { role: 'quit', accelerator: 'Ctrl+Q' },
     ],
   };
+  // Undo and redo step through the cleaning log; the page falls back to a
+  // text field's own undo when one has the focus.
+  const edit: MenuItemConstructorOptions = {
+    label: '&Edit',
+    submenu: [
+      { label: 'Undo change', accelerator: 'CmdOrCtrl+Z', click: () => send('undo-change') },
+      { label: 'Redo change', accelerator: isMac ? 'Shift+CmdOrCtrl+Z' : 'CmdOrCtrl+Y', click: () => send('redo-change') },
+      { type: 'separator' },
+      { role: 'cut' },
+      { role: 'copy' },
+      { role: 'paste' },
+      { role: 'selectAll' },
+    ],
+  };
   const template: MenuItemConstructorOptions[] = [
     ...(isMac ? [{ role: 'appMenu' } as MenuItemConstructorOptions] : []),
     file,
-    { role: 'editMenu' },
+    edit,
     { role: 'viewMenu' },
     { role: 'windowMenu' },
   ];

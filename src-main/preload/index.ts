@@ -1,8 +1,9 @@
-import { contextBridge, ipcRenderer } from 'electron';
+import { contextBridge, ipcRenderer, webUtils } from 'electron';
 import { bridgeGlobal, channelNames, commandChannel, hostCommands, type HostCommand } from '@shared/host/channels';
 
 // Exposes exactly one function per contract channel, plus a listener for
-// host commands. Nothing else of Electron or Node reaches the page.
+// host commands and the path of a dropped file. Nothing else of Electron or
+// Node reaches the page.
 const bridge: Record<string, unknown> = {};
 for (const channel of channelNames) {
   bridge[channel] = (input: unknown) => ipcRenderer.invoke(channel, input);
@@ -14,4 +15,6 @@ bridge['onCommand'] = (listener: (command: HostCommand) => void) => {
   ipcRenderer.on(commandChannel, handler);
   return () => ipcRenderer.removeListener(commandChannel, handler);
 };
+// A dropped file's path on disk (the page sees only the File object).
+bridge['pathForFile'] = (file: File) => webUtils.getPathForFile(file);
 contextBridge.exposeInMainWorld(bridgeGlobal, Object.freeze(bridge));

@@ -1,7 +1,8 @@
-export type Stage = 'programme';
+export type Stage = 'programme' | 'records';
 
 const stages: { id: Stage; label: string; hint: string }[] = [
   { id: 'programme', label: 'Programme', hint: 'Sites, seasons and species in the project' },
+  { id: 'records', label: 'Records', hint: 'Import season workbooks, check and clean the counts' },
 ];
 
 /** The column of work stages down the left edge. */

@@ -1,0 +1,42 @@
+import { useEffect, useRef, useState } from 'react';
+
+/** Asks for a short reason before an action that needs one (leaving records out). */
+export function ReasonDialog({ title, detail, initial, confirm, onDone }: { title: string; detail: string; initial: string; confirm: string; onDone(reason: string | null): void }) {
+  const [reason, setReason] = useState(initial);
+  const input = useRef<HTMLInputElement>(null);
+  useEffect(() => input.current?.select(), []);
+  const ok = reason.trim() !== '';
+  return (
+    <div className="dialog-backdrop">
+      <form
+        className="dialog"
+        role="dialog"
+        aria-modal="true"
+        aria-labelledby="reason-title"
+        onSubmit={(e) => {
+          e.preventDefault();
+          if (ok) onDone(reason.trim());
+        }}
+        onKeyDown={(e) => {
+          if (e.key === 'Escape') onDone(null);
+        }}
+      >
+        <h2 id="reason-title">{title}</h2>
+        <p>{detail}</p>
+        <label className="field">
+          <span>Reason (kept in the change log)</span>
+          <input ref={input} value={reason} onChange={(e) => setReason(e.target.value)} aria-label="Reason" />
+        </label>
+        {!ok && <p className="hint">Say why, so a reader of the report can follow the decision.</p>}
+        <div className="dialog-actions">
+          <button type="button" className="button" onClick={() => onDone(null)}>
+            Cancel
+          </button>
+          <button type="submit" className="button is-primary" disabled={!ok}>
+            {confirm}
+          </button>
+        </div>
+      </form>
+    </div>
+  );
+}
