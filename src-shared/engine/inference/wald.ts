@@ -5,9 +5,13 @@ import { normalQuantile, twoSidedNormalP } from '../math/distributions';
 /** The 0.975 quantile of the standard normal. */
 export const Z_975 = 1.959963984540054;
 
-/** Coefficient rows from estimates and a k x k column-major covariance. */
-export function waldRows(names: readonly string[], beta: ArrayLike<number>, cov: Float64Array, level = 0.95): CoefficientRow[] {
-  const k = names.length;
+/**
+ * Coefficient rows from estimates and a column-major covariance of dimension
+ * `dim` (default: one row and column per name; larger when the covariance
+ * also holds further parameters after the listed ones, e.g. log theta).
+ */
+export function waldRows(names: readonly string[], beta: ArrayLike<number>, cov: Float64Array, level = 0.95, dim = names.length): CoefficientRow[] {
+  const k = dim;
   const q = level === 0.95 ? Z_975 : quantileFor(level);
   return names.map((term, j) => {
     const estimate = beta[j];
