@@ -1,0 +1,23 @@
+/** Model diagnostics: plain data from a fit (and its table) for the charts and the report. */
+export { fittedDistribution, DiagnosticsInputError, QUASI_POISSON_NOTE } from './fitted-distribution';
+export type { FitForDiagnostics, FittedDistribution } from './fitted-distribution';
+export { countFrequencies, chooseTailFrom, requireSameRecords } from './count-frequencies';
+export type { CountFrequencies, FrequencyOptions, LabelledFit, ModelFrequencies } from './count-frequencies';
+export { hangingRootogram } from './rootogram';
+export type { HangingRootogram, RootogramBin } from './rootogram';
+export { zeroCounts } from './zero-counts';
+export type { ModelZeros, ZeroCounts } from './zero-counts';
+export { quantileResiduals, quantileResidualOf } from './quantile-residuals';
+export type { QuantileResiduals, ResidualOptions } from './quantile-residuals';
+export { residualGroups } from './residual-groups';
+export type { ResidualGroups } from './residual-groups';
+export { qqEnvelope, QQ_METHOD } from './qq-envelope';
+export type { QqEnvelope, QqOptions, QqPoint } from './qq-envelope';
+export { simulateResponses } from './simulate-responses';
+export { meanVarianceBySite } from './mean-variance';
+export type { CurvePoint, MeanVariance, MeanVarianceOptions, SiteMoments } from './mean-variance';
+export { siteInfluence, siteInfluenceByRefit, siteInfluenceOneStep, ONE_STEP_NOTE, REFIT_NOTE } from './site-influence';
+export type { InfluenceMethod, RefitFunction, RefitInfluenceOptions, SiteInfluence, SiteInfluenceOptions, SiteInfluenceRow } from './site-influence';
+export { outlierFlags } from './outlier-flags';
+export type { OutlierFlag, OutlierFlags, OutlierOptions } from './outlier-flags';
+export type { DiagnosticsControl } from './cancellable';
