@@ -1,0 +1,104 @@
+/**
+ * The parts every Tallywise chart shares: the title block, axes with their
+ * units, the grid and the legend, in one plain style (no shadows, no 3-D, no
+ * animation, light grid lines). Options are plain JSON-serialisable data, so
+ * the screen and echarts' server-side SVG renderer for the report draw the
+ * same picture.
+ */
+import type { EChartsOption } from 'echarts';
+import { greys } from './palette';
+
+export type ChartOption = EChartsOption;
+
+/** A number for a chart: finite values kept (rounded to 6 significant digits), anything else null (a gap). */
+export function chartNumber(v: number | null | undefined): number | null {
+  if (v === null || v === undefined || !Number.isFinite(v)) return null;
+  return v === 0 ? 0 : Number(v.toPrecision(6));
+}
+
+const text = { color: greys.ink, fontFamily: 'sans-serif' };
+
+export interface FrameParts {
+  readonly title: string;
+  /** One or two plain sentences under the title (method, what is left out). */
+  readonly subtitle?: string;
+  readonly legend?: boolean;
+  /** Series shown in the legend (default all); helper series such as a band's base are left out. */
+  readonly legendNames?: readonly string[];
+}
+
+/** Title, legend, grid, tooltip and text style. */
+export function chartFrame(parts: FrameParts): ChartOption {
+  return {
+    animation: false,
+    backgroundColor: '#FFFFFF',
+    textStyle: text,
+    title: {
+      text: parts.title,
+      subtext: parts.subtitle ?? '',
+      left: 12,
+      top: 8,
+      textStyle: { ...text, fontSize: 15, fontWeight: 'bold' },
+      subtextStyle: { color: greys.axis, fontSize: 11, width: 640, overflow: 'break' },
+    },
+    legend:
+      parts.legend === false
+        ? { show: false }
+        : { show: true, top: parts.subtitle ? 66 : 38, left: 12, textStyle: { color: greys.axis }, itemWidth: 16, itemHeight: 10, ...(parts.legendNames ? { data: [...parts.legendNames] } : {}) },
+    grid: { left: 64, right: 24, top: parts.subtitle ? 104 : 72, bottom: 56, containLabel: false },
+    tooltip: { trigger: 'item' },
+  };
+}
+
+interface AxisParts {
+  readonly name: string;
+  readonly log?: boolean;
+  readonly min?: number;
+  readonly max?: number;
+}
+
+const axisLine = { lineStyle: { color: greys.axis } };
+const splitLine = { lineStyle: { color: greys.grid } };
+
+/** A numeric axis with its title (units in the title: "Records", "Count per hour"). */
+export function valueAxis(parts: AxisParts, position: 'x' | 'y') {
+  return {
+    type: parts.log ? ('log' as const) : ('value' as const),
+    name: parts.name,
+    nameLocation: 'middle' as const,
+    nameGap: position === 'x' ? 32 : 46,
+    nameTextStyle: { color: greys.axis },
+    axisLine: { show: true, onZero: false, ...axisLine },
+    axisLabel: { color: greys.axis },
+    splitLine: position === 'y' ? splitLine : { show: false },
+    scale: !parts.log && parts.min === undefined,
+    ...(parts.min !== undefined ? { min: parts.min } : {}),
+    ...(parts.max !== undefined ? { max: parts.max } : {}),
+  };
+}
+
+/** A category axis (count bins, seasons, sites, models). */
+export function categoryAxis(name: string, data: readonly string[]) {
+  return {
+    type: 'category' as const,
+    name,
+    nameLocation: 'middle' as const,
+    nameGap: 32,
+    nameTextStyle: { color: greys.axis },
+    data: [...data],
+    axisLine,
+    axisTick: { alignWithLabel: true },
+    axisLabel: { color: greys.axis },
+  };
+}
+
+/** A horizontal reference line (0 for residuals, 100 for an index), drawn with a line series' markLine. */
+export function horizontalLine(value: number, label: string) {
+  return {
+    silent: true,
+    symbol: ['none', 'none'],
+    label: { formatter: label, position: 'insideEndTop' as const, color: greys.axis },
+    lineStyle: { color: greys.axis, type: 'dashed' as const, width: 1 },
+    data: [{ yAxis: value }],
+  };
+}

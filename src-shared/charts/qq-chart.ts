@@ -1,0 +1,71 @@
+/**
+ * Normal QQ plot of the residuals with the simulation envelope as a band
+ * (a transparent line at the lower limit with the band's width stacked on it),
+ * the line y = x, and points outside the envelope in the attention colour.
+ * Point data: [normal quantile, residual, table row].
+ */
+import type { QqEnvelope } from '../diagnostics/qq-envelope';
+import type { ChartOption } from './chart-style';
+import { chartFrame, chartNumber, valueAxis } from './chart-style';
+import { attention, greys, seriesColour } from './palette';
+
+export const QQ_TITLE = 'Are the residuals normal? QQ plot with simulation envelope';
+
+export function qqChart(env: QqEnvelope, modelLabel: string): ChartOption {
+  const pts = env.points;
+  const point = (p: (typeof pts)[number]) => [chartNumber(p.theoretical), chartNumber(p.residual), p.row];
+  const lo = pts.length ? pts[0].theoretical : -3;
+  const hi = pts.length ? pts[pts.length - 1].theoretical : 3;
+  const share = Math.round(env.outsideShare * 1000) / 10;
+  return {
+    ...chartFrame({
+      title: QQ_TITLE,
+      subtitle: `${modelLabel}: ${share}% of ${pts.length} points outside the ${Math.round(env.level * 100)}% envelope (${env.simulations} simulations). ${env.method}`,
+      legendNames: [`${Math.round(env.level * 100)}% envelope`, 'y = x', 'Residuals', 'Outside the envelope'],
+    }),
+    xAxis: valueAxis({ name: 'Standard normal quantile' }, 'x'),
+    yAxis: valueAxis({ name: 'Randomized quantile residual' }, 'y'),
+    series: [
+      {
+        id: 'envelope-lower',
+        name: 'envelope-lower',
+        type: 'line',
+        stack: 'envelope',
+        stackStrategy: 'all',
+        silent: true,
+        symbol: 'none',
+        lineStyle: { opacity: 0 },
+        tooltip: { show: false },
+        data: pts.map((p) => [chartNumber(p.theoretical), chartNumber(p.lower)]),
+      },
+      {
+        id: 'envelope',
+        name: `${Math.round(env.level * 100)}% envelope`,
+        type: 'line',
+        stack: 'envelope',
+        stackStrategy: 'all',
+        silent: true,
+        symbol: 'none',
+        lineStyle: { opacity: 0 },
+        itemStyle: { color: greys.band },
+        areaStyle: { color: greys.band, opacity: 0.8 },
+        data: pts.map((p) => [chartNumber(p.theoretical), chartNumber(p.upper - p.lower)]),
+      },
+      {
+        id: 'identity',
+        name: 'y = x',
+        type: 'line',
+        silent: true,
+        symbol: 'none',
+        lineStyle: { color: greys.axis, type: 'dashed', width: 1 },
+        itemStyle: { color: greys.axis },
+        data: [
+          [chartNumber(lo), chartNumber(lo)],
+          [chartNumber(hi), chartNumber(hi)],
+        ],
+      },
+      { id: 'inside', name: 'Residuals', type: 'scatter', symbolSize: 5, itemStyle: { color: seriesColour(0) }, data: pts.filter((p) => !p.outside).map(point), z: 3 },
+      { id: 'outside', name: 'Outside the envelope', type: 'scatter', symbolSize: 6, itemStyle: { color: attention }, data: pts.filter((p) => p.outside).map(point), z: 4 },
+    ],
+  };
+}
