@@ -1,0 +1,30 @@
+/** Renders an option with echarts' server-side SVG renderer, as the report does. */
+import * as echarts from 'echarts';
+import type { ChartOption } from '@shared/charts';
+
+export function renderSvg(option: ChartOption, width = 800, height = 500): string {
+  const chart = echarts.init(null, null, { renderer: 'svg', ssr: true, width, height });
+  try {
+    chart.setOption(option);
+    return chart.renderToSVGString();
+  } finally {
+    chart.dispose();
+  }
+}
+
+/** Shapes filled with a colour (echarts writes fill="#rrggbb" in upper case as given). */
+export function filled(svg: string, colour: string): number {
+  return svg.split(`fill="${colour}"`).length - 1;
+}
+
+/** Every number in an option is finite (JSON would turn NaN or Infinity into null silently). */
+export function nonFiniteNumbers(value: unknown, path = 'option'): string[] {
+  if (typeof value === 'number') return Number.isFinite(value) ? [] : [path];
+  if (Array.isArray(value)) return value.flatMap((v, i) => nonFiniteNumbers(v, `${path}[${i}]`));
+  if (value && typeof value === 'object') return Object.entries(value).flatMap(([k, v]) => nonFiniteNumbers(v, `${path}.${k}`));
+  return [];
+}
+
+export function escapeXml(s: string): string {
+  return s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
+}
