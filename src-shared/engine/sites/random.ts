@@ -18,6 +18,7 @@ import { BOUNDARY_THETA_SENTENCE } from '../negbin/fit';
 import { THETA_MAX } from '../negbin/theta';
 import type { FitControl, FitOutcome, Warning } from '../types';
 import { FitInputError } from '../types';
+import { centreColumns, uncentre } from './centring';
 import { fitRandomCore } from './random-core';
 import { siteFrame } from './site-frame';
 import { pearsonChi2 } from '../inference/likelihood';
@@ -36,9 +37,11 @@ export function fitRandomSite(table: DataTable, spec: ModelSpec, control: FitCon
     throw new FitInputError('few-sites', `A random site effect needs at least 2 sites, but column "${sf.column}" has ${nSites} in the rows used. Fit without a site effect instead.`);
   }
   const q = spec.site!.quadraturePoints;
-  const core = fitRandomCore({
+  // The optimiser works on centred, unit-scale columns; estimates are mapped back exactly.
+  const centring = centreColumns(d.data, d.n, d.p, d.names.indexOf('intercept'));
+  const centred = fitRandomCore({
     y: sf.y,
-    x: d.data,
+    x: centring.x,
     n: d.n,
     p: d.p,
     offset: sf.hasOffset ? sf.offset : null,
@@ -48,6 +51,7 @@ export function fitRandomSite(table: DataTable, spec: ModelSpec, control: FitCon
     quadraturePoints: q,
     control,
   });
+  const core = { ...centred, ...uncentre(centring, centred.beta, centred.covariance, d.p) };
   const warnings: Warning[] = [...sf.warnings];
   if (nSites < 5) {
     warnings.push({ code: 'few-sites', message: `Only ${nSites} sites: the random-effect SD is poorly determined with so few. Consider fixed site effects.` });
