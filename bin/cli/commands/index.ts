@@ -3,6 +3,8 @@ import { check } from './check';
 import { demo } from './demo';
 import { fit } from './fit';
 import { merge } from './merge';
+import { power } from './power';
+import { trend } from './trend';
 
 /** Every command, in the order `tallywise help` lists them. */
-export const commands: readonly CliCommand[] = [check, fit, merge, demo];
+export const commands: readonly CliCommand[] = [check, fit, trend, power, merge, demo];
