@@ -69,3 +69,20 @@ describe('argument parsing', () => {
     expect(() => parseArgs(['--out', '--json'], { values: ['out'], flags: ['json'] })).toThrow(/--out needs a value/);
   });
 });
+
+describe('fit on bad data', () => {
+  it('names the data row and its row in the file, exit 2', async () => {
+    const { mkdtempSync, writeFileSync } = await import('node:fs');
+    const { tmpdir } = await import('node:os');
+    const { join } = await import('node:path');
+    const dir = mkdtempSync(join(tmpdir(), 'tw-cli-'));
+    writeFileSync(join(dir, 'bad.csv'), 'count,x\n1,0.1\n-2,0.2\n3,0.3\n');
+    writeFileSync(join(dir, 'spec.json'), JSON.stringify({ response: 'count', distribution: 'poisson', predictors: [{ column: 'x', type: 'numeric' }] }));
+    const io = collect();
+    expect(await main(['fit', '--data', join(dir, 'bad.csv'), '--spec', join(dir, 'spec.json')], io)).toBe(2);
+    const err = io.stderr.join('\n');
+    expect(err).toMatch(/data row 2\b/);
+    expect(err).toMatch(/is row 3, counting the header row/);
+    expect(err).not.toMatch(/Usage:/);
+  });
+});

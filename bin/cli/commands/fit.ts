@@ -2,7 +2,7 @@ import { resolve } from 'node:path';
 import { findColumn, type DataTable } from '@shared/data/table';
 import { rowList } from '@shared/engine/design/build';
 import { fitModel } from '@shared/engine/fit';
-import { FitCancelled } from '@shared/engine/types';
+import { FitCancelled, FitInputError } from '@shared/engine/types';
 import type { ModelSpec } from '@shared/model/spec';
 import { fitGroupsOnPool } from '@shared/worker/fit-batch';
 import { planGroups, type Shard } from '@shared/worker/fit-groups';
@@ -55,12 +55,25 @@ export const fit: CliCommand = {
     const jobs = parseJobs(args.options.get('jobs'));
     const table = await loadDataTable(dataPath, { sheet: args.options.get('sheet') });
     if (by !== undefined) return fitByGroup(table, spec, { by, shard, jobs }, io);
-    const outcome = fitModel(table, spec);
+    const outcome = withFileRows(() => fitModel(table, spec), dataPath);
     if (args.flags.has('json')) io.out(JSON.stringify(outcome.summary, null, 2));
     else io.out(fitAsText(outcome.summary));
     return outcome.summary.converged ? 0 : 1;
   },
 };
+
+/** Adds where a data row stands in the file to the engine's message (data row i is file row i + 1, after the header). */
+export function withFileRows<T>(fit: () => T, file: string): T {
+  try {
+    return fit();
+  } catch (err) {
+    if (err instanceof FitInputError && err.rows.length > 0) {
+      const first = err.rows[0] + 1;
+      throw new FitInputError(err.code, `${err.message} (In ${file}, data row ${first} is row ${first + 1}, counting the header row.)`, err.rows);
+    }
+    throw err;
+  }
+}
 
 function parseShard(text: string | undefined): Shard | undefined {
   if (text === undefined) return undefined;
