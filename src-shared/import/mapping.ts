@@ -1,5 +1,6 @@
 import { parseNumber } from '../data/table';
 import { CellKind } from './cells';
+import { serialToIso } from './excel-dates';
 import { compileFieldCodes, defaultFieldCodes } from './field-codes';
 import type { Finding } from './findings';
 import type { ImportedColumn, ImportedTable, ImportQuestion } from './imported-table';
@@ -14,7 +15,8 @@ import { isAreaUnit, isEffortUnit, toCanonicalEffort, toHectares, effortUnitInfo
 /**
  * Applies a mapping template to an imported table: one CountRecord per
  * count cell (wide layouts reshaped: one record per species column or per
- * visit column), dates read, field codes classified, effort converted to its
+ * visit column), dates read (a plain number in the date column as a day
+ * serial), field codes classified, effort converted to its
  * canonical unit, area to hectares (from the row, or joined from a site
  * sheet by site name).
  */
@@ -132,14 +134,18 @@ export function applyMapping(table: ImportedTable, template: MappingTemplate, op
     effort: effortB && letterOf(effortB.col.name), area: areaB && letterOf(areaB.col.name), observer: observerB && letterOf(observerB.col.name), species: speciesB && letterOf(speciesB.col.name),
   };
   const dateCache = new Map<string, string | null>();
+  const date1904 = table.source.date1904 ?? false;
   for (let i = 0; i < table.nrows; i++) {
     const siteName = site.col.texts[i].trim();
     let date: string | null = null;
     let dateText = '';
+    let dateKind: CountRecord['dateKind'];
     if (dateB) {
       const k = dateB.col.kinds[i];
       dateText = dateB.col.texts[i].trim();
+      dateKind = k === CellKind.date ? 'date' : k === CellKind.number ? 'number' : dateText === '' ? 'blank' : 'text';
       if (k === CellKind.date) date = dateText.slice(0, 10);
+      else if (k === CellKind.number) date = serialToIso(dateB.col.numbers[i], date1904)?.slice(0, 10) ?? null;
       else if (k === CellKind.text) {
         let d = dateCache.get(dateText);
         if (d === undefined) {
@@ -174,7 +180,7 @@ export function applyMapping(table: ImportedTable, template: MappingTemplate, op
       const species = template.layout === 'wide-species' ? (c.map.species ?? c.map.header) : speciesB ? speciesB.col.texts[i].trim() : (template.species ?? c.map.header);
       const visit = template.layout === 'wide-visit' ? (c.map.visit ?? c.map.header) : visitB ? visitB.col.texts[i].trim() : '';
       records.push({
-        sheet, row, column: c.col.letters[table.sheetIndex[i]], site: siteName, date, dateText, season, visit, species,
+        sheet, row, column: c.col.letters[table.sheetIndex[i]], site: siteName, date, dateText, dateKind, season, visit, species,
         code: c.col.texts[i], status: reading.status, count: Number.isNaN(reading.number) ? null : reading.number, rule,
         effort, effortText, area, observer, covariates: cov, columns: columnsOf, formulaError: c.col.kinds[i] === CellKind.error,
       });

@@ -14,6 +14,8 @@ export interface CountRecord {
   /** ISO date, or null when there is no date or it could not be read. */
   readonly date: string | null;
   readonly dateText: string;
+  /** How the date cell was stored: a real date, text, a number (a day serial), or blank; absent without a date column. */
+  readonly dateKind?: 'date' | 'text' | 'number' | 'blank';
   readonly season: string;
   readonly visit: string;
   readonly species: string;

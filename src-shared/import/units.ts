@@ -39,6 +39,11 @@ export function toCanonicalEffort(value: number, unit: EffortUnit): number {
   return value * effortInfo[unit].factor;
 }
 
+/** Effort back in the unit it was written in (the inverse of toCanonicalEffort, rounded to 12 significant digits to undo the division's last-place error). */
+export function fromCanonicalEffort(value: number, unit: EffortUnit): number {
+  return Number((value / effortInfo[unit].factor).toPrecision(12));
+}
+
 const areaFactor: Record<AreaUnit, number> = { m2: 1e-4, ha: 1, km2: 100 };
 
 /** Area in hectares. */

@@ -1,6 +1,7 @@
 import { CellKind } from './cells';
 import type { Finding } from './findings';
 import type { ImportedTable } from './imported-table';
+import { linkFindings, type FindingLinks, type LinkedFinding } from './linked-findings';
 import { placeOf } from './imported-table';
 import type { CountRecord } from './records';
 import { foldName, variantGroups } from './similarity';
@@ -8,7 +9,8 @@ import { effortUnits, effortUnitInfo, type EffortUnit } from './units';
 
 /**
  * Checks count records for what needs a person's eye before modelling. Each
- * finding has a stable code, a severity, its place and the usual fix.
+ * finding has a stable code, a severity, its place and the usual fix;
+ * `validateRecordsLinked` also gives the records each one concerns.
  */
 export interface ValidateOptions {
   readonly file: string;
@@ -50,14 +52,35 @@ export function formulaErrors(table: ImportedTable): Finding[] {
 }
 
 export function validateRecords(records: readonly CountRecord[], options: ValidateOptions): Finding[] {
+  return runChecks(records, options, new Map());
+}
+
+/** The same findings, each with the records it concerns (see linked-findings.ts). */
+export function validateRecordsLinked(records: readonly CountRecord[], options: ValidateOptions): LinkedFinding[] {
+  const links = new Map<Finding, Partial<FindingLinks>>();
+  return linkFindings(runChecks(records, options, links), records, links);
+}
+
+/** Indices of the records whose field holds this exact text. */
+function holding(records: readonly CountRecord[], field: 'site' | 'species', text: string): number[] {
+  const out: number[] = [];
+  records.forEach((r, i) => r[field] === text && out.push(i));
+  return out;
+}
+
+/** The findings, with the links a check knows beyond a finding's place (name variants, repeated rows) put in `links`. */
+export function runChecks(records: readonly CountRecord[], options: ValidateOptions, links: Map<Finding, Partial<FindingLinks>>): Finding[] {
   const out: Finding[] = [];
   const seen = new Set<string>();
-  const add = (f: Finding) => {
+  const add = (f: Finding, link?: Partial<FindingLinks>) => {
     const key = `${f.code}|${f.sheet}|${f.row}|${f.column}`;
     if (seen.has(key)) return;
     seen.add(key);
     out.push(f);
+    if (link) links.set(f, link);
   };
+  // A date typed as text stands out only among real date cells (in a CSV every date is text).
+  const hasRealDates = records.some((r) => r.dateKind === 'date');
   const file = options.file;
   const range = options.effortRange ?? plausibleRange(options.effortUnit);
   const firstRow = new Map<string, CountRecord>();
@@ -87,6 +110,8 @@ export function validateRecords(records: readonly CountRecord[], options: Valida
     } else if (r.status === 'at-least' || r.status === 'approximate') {
       const what = r.status === 'at-least' ? `at least ${fmt(r.count!)}` : `about ${fmt(r.count!)}`;
       add({ ...at, column: r.column, code: `${r.status}-count`, severity: 'info', message: `"${r.code.trim()}" is read as ${what} and used as ${fmt(r.count!)} in the counts.`, fix: 'Nothing to do if that is right; type the exact count if it is known.' });
+    } else if (r.status === 'not-surveyed' && r.code.trim() !== '') {
+      add({ ...at, column: r.column, code: 'not-surveyed-code', severity: 'info', message: `"${r.code.trim()}" means not surveyed; the record is kept as missing, not as zero.`, fix: 'Nothing to do if the species was not looked for; type the count if it was.' });
     }
     if (hasNumber && !Number.isFinite(r.count!)) {
       add({ ...at, column: r.column, code: 'count-not-finite', severity: 'error', message: `The count "${r.code.trim()}" is too large to be a number.`, fix: 'Correct the count from the field sheet.' });
@@ -99,7 +124,9 @@ export function validateRecords(records: readonly CountRecord[], options: Valida
     }
     if (options.hasDate) {
       if (r.dateText === '') add({ ...at, column: r.columns.date, code: 'date-missing', severity: 'error', message: 'The row has no date.', fix: 'Fill in the visit date from the field sheet.' });
-      else if (r.date === null && !(options.dateOrderPending && /^\d{1,2}[/-]\d{1,2}[/-]\d{2,4}$/.test(r.dateText))) {
+      else if (r.dateKind === 'text' && r.date !== null && hasRealDates) {
+        add({ ...at, column: r.columns.date, code: 'date-as-text', severity: 'info', message: `The date "${r.dateText}" was typed as text; it was read as ${r.date}.`, fix: 'Check the reading; to be sure, retype it as a real date in the workbook.' });
+      } else if (r.date === null && !(options.dateOrderPending && /^\d{1,2}[/-]\d{1,2}[/-]\d{2,4}$/.test(r.dateText))) {
         add({ ...at, column: r.columns.date, code: 'date-unreadable', severity: 'error', message: `"${r.dateText}" cannot be read as a date.`, fix: 'Type the date as year-month-day (2019-05-03) or format the cell as a date.' });
       }
     }
@@ -122,12 +149,13 @@ export function validateRecords(records: readonly CountRecord[], options: Valida
     if (r.status !== 'not-surveyed') {
       let folded = foldedSites.get(r.site);
       if (folded === undefined) foldedSites.set(r.site, (folded = foldName(r.site)));
-      const key = `${folded}|${r.date ?? `visit ${r.visit}|${r.dateText}`}|${r.species}`;
+      // Two visits on one day are two visits when the sheet numbers its visits.
+      const key = `${folded}|${r.date ?? `visit ${r.visit}|${r.dateText}`}|${r.date && r.columns.visit ? r.visit : ''}|${r.species}`;
       const first = firstRow.get(key);
       if (first && !(first.sheet === r.sheet && first.row === r.row)) {
         const place = `${first.sheet === r.sheet ? '' : `sheet "${first.sheet}" `}row ${first.row}`;
-        const when = r.date ?? (r.dateText || `visit ${r.visit}`);
-        add({ ...at, column: r.columns.site, code: 'duplicate-record', severity: 'error', message: `This row repeats ${place}: site "${r.site}", ${when}, species "${r.species}" is recorded in both.`, fix: 'Delete the repeated row, or correct its site or date if it is a different visit.' });
+        const when = r.date ? `${r.date}${r.columns.visit && r.visit ? `, visit ${r.visit}` : ''}` : r.dateText || `visit ${r.visit}`;
+        add({ ...at, column: r.columns.site, code: 'duplicate-record', severity: 'error', message: `This row repeats ${place}: site "${r.site}", ${when}, species "${r.species}" is recorded in both.`, fix: 'Delete the repeated row, or correct its site or date if it is a different visit.' }, first.sheet === r.sheet ? { repeats: first.row } : undefined);
       } else if (!first) firstRow.set(key, r);
       const visitKey = r.date ?? `${r.visit}|${r.dateText}`;
       const sv = visitsOfSite.get(r.site);
@@ -145,10 +173,10 @@ export function validateRecords(records: readonly CountRecord[], options: Valida
     }
   }
 
-  // Sites seen on one visit only, when sites usually get several.
+  // Sites seen on one visit only, when sites usually get several ("most sites" needs three sites or more).
   const visitCounts = [...visitsOfSite.values()].map((s) => s.size).sort((a, b) => a - b);
   const median = visitCounts.length ? visitCounts[Math.floor(visitCounts.length / 2)] : 0;
-  if (median >= 2) {
+  if (median >= 2 && visitCounts.length >= 3) {
     for (const [site, visits] of visitsOfSite) {
       if (visits.size !== 1 || site === '') continue;
       const r = firstOfSite.get(site)!;
@@ -158,13 +186,15 @@ export function validateRecords(records: readonly CountRecord[], options: Valida
   for (const g of variantGroups(siteCounts)) {
     for (const v of g.variants) {
       const r = firstOfSite.get(v.name)!;
-      add({ file, sheet: r.sheet, row: r.row, column: r.columns.site, code: 'similar-site-name', severity: 'warning', message: `Site "${v.name}" (${v.count} record${v.count > 1 ? 's' : ''}) looks like a variant of "${g.keep}" (${g.keepCount}).`, fix: `Merge it into "${g.keep}" if it is the same site; otherwise give the sites clearly different names.` });
+      add({ file, sheet: r.sheet, row: r.row, column: r.columns.site, code: 'similar-site-name', severity: 'warning', message: `Site "${v.name}" (${v.count} record${v.count > 1 ? 's' : ''}) looks like a variant of "${g.keep}" (${g.keepCount}).`, fix: `Merge it into "${g.keep}" if it is the same site; otherwise give the sites clearly different names.` }, { records: holding(records, 'site', v.name), merge: { field: 'site', from: v.name, into: g.keep } });
     }
   }
-  for (const g of variantGroups(speciesCounts)) {
+  // Species names typed in a species column; the headers of a wide sheet are names the sheet's author chose once, not typing slips.
+  const typedSpecies = records.some((r) => r.columns.species !== undefined);
+  for (const g of typedSpecies ? variantGroups(speciesCounts) : []) {
     for (const v of g.variants) {
       const r = firstOfSpecies.get(v.name)!;
-      add({ file, sheet: r.sheet, row: r.row, column: r.columns.species ?? r.column, code: 'similar-species-name', severity: 'warning', message: `Species "${v.name}" (${v.count} record${v.count > 1 ? 's' : ''}) looks like a variant of "${g.keep}" (${g.keepCount}).`, fix: `Merge it into "${g.keep}" if it is the same species; otherwise give the species clearly different names.` });
+      add({ file, sheet: r.sheet, row: r.row, column: r.columns.species ?? r.column, code: 'similar-species-name', severity: 'warning', message: `Species "${v.name}" (${v.count} record${v.count > 1 ? 's' : ''}) looks like a variant of "${g.keep}" (${g.keepCount}).`, fix: `Merge it into "${g.keep}" if it is the same species; otherwise give the species clearly different names.` }, { records: holding(records, 'species', v.name), merge: { field: 'species', from: v.name, into: g.keep } });
     }
   }
   return out;
