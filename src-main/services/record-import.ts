@@ -7,10 +7,13 @@ import { tableFromGrids } from '@shared/import/table-from-grids';
 import type { DateOrder } from '@shared/import/text-dates';
 import { ImportError } from '@shared/import/import-error';
 import type { ImportedSource } from '@shared/project/imported-source';
-import type { ColumnRoles, LoadedSource } from '@shared/host/contract';
+import { recordId, type ColumnRoles, type LoadedSource } from '@shared/host/contract';
+import { checkMappedTable } from '@shared/import/check-table';
+import { applyMapping } from '@shared/import/mapping';
+import { rolesToTemplate } from '@shared/import/roles-template';
+import { fromCanonicalEffort, isEffortUnit } from '@shared/import/units';
 import { planRoles, type RolePlan } from './column-roles';
-import { reshapeRecords } from './count-records';
-import { checkRecords } from './record-checks';
+import { toPageFindings } from './record-checks';
 import { recordsToColumns } from './record-wire';
 import { readStoredGrid, storeGrid } from './source-cells';
 
@@ -42,9 +45,20 @@ export interface WorkbookReading {
   rolesNeeded: string | null;
 }
 
+/**
+ * The records and findings of one table: its roles as a mapping template,
+ * applied and checked by the shared code `tallywise check` uses. The page
+ * shows effort in the unit of its column, so it is given back in that unit.
+ */
 function loadedFrom(table: ImportedTable, plan: RolePlan, dateOrder: DateOrder, meta: Omit<ImportedSource, 'sheets'>): LoadedSource {
-  const { records, effortUnit } = reshapeRecords(table, plan.roles, meta.id, dateOrder);
-  const findings = checkRecords(records, meta.fileName, plan.roles.effort !== undefined);
+  const template = rolesToTemplate(plan.roles, table.columns.map((c) => c.name), dateOrder);
+  const mapped = applyMapping(table, template, { dateOrder });
+  const { records } = mapped;
+  const unit = template.columns.find((c) => c.role === 'effort')?.unit;
+  const effortUnit = isEffortUnit(unit) ? unit : undefined;
+  const ids = records.map((r) => recordId(meta.id, r.sheet, r.column, r.row));
+  const { findings, notes } = toPageFindings(checkMappedTable(table, template, mapped, meta.fileName), ids);
+  const layout = table.findings.map((f) => ({ code: f.code, severity: f.severity, message: f.message, fix: f.fix, sheet: f.sheet, row: f.row }));
   return {
     summary: {
       id: meta.id,
@@ -56,9 +70,9 @@ function loadedFrom(table: ImportedTable, plan: RolePlan, dateOrder: DateOrder, 
       records: records.length,
       effortUnit,
       mappedBy: plan.mappedBy,
-      notes: table.findings.map((f) => ({ code: f.code, severity: f.severity, message: f.message, fix: f.fix, sheet: f.sheet, row: f.row })),
+      notes: [...layout, ...notes],
     },
-    records: recordsToColumns(records, meta.id),
+    records: recordsToColumns(records, meta.id, (r) => (r.effort === null || !effortUnit ? r.effort : fromCanonicalEffort(r.effort, effortUnit))),
     findings,
   };
 }
@@ -72,7 +86,7 @@ export async function readWorkbook(path: string, opts: { sheet?: string; dateOrd
   const headers = first.columns.map((c) => c.name);
   let plan: RolePlan;
   try {
-    plan = planRoles(headers, fileName, opts.roles);
+    plan = planRoles(first, fileName, opts.roles);
   } catch (err) {
     if (!opts.roles && err instanceof ImportError && err.code === 'bad-template') return { data: null, questions: [], headers, rolesNeeded: err.message };
     throw err;

@@ -1,5 +1,5 @@
 import { recordFields, type PackedColumn, type RecordColumns } from '@shared/host/contract';
-import type { IdentifiedRecord } from './count-records';
+import type { CountRecord } from '@shared/import/records';
 
 /** Records as packed columns for the bridge (the format is described in the contract). */
 export function packColumn(values: readonly (string | number | null)[]): PackedColumn {
@@ -22,9 +22,13 @@ export function packColumn(values: readonly (string | number | null)[]): PackedC
   return { levels, codes: codes.join(',') };
 }
 
-export function recordsToColumns(records: readonly IdentifiedRecord[], sourceId: string): RecordColumns {
+/**
+ * `effort` gives each record's effort as the page shows it (in the unit of
+ * its column, where the records hold the canonical unit).
+ */
+export function recordsToColumns(records: readonly CountRecord[], sourceId: string, effort: (r: CountRecord) => number | null = (r) => r.effort): RecordColumns {
   const values: Record<string, PackedColumn> = {};
-  for (const f of recordFields) values[f] = packColumn(records.map((r) => r[f] as string | number | null));
+  for (const f of recordFields) values[f] = packColumn(f === 'effort' ? records.map(effort) : records.map((r) => r[f] as string | number | null));
   const first = records[0];
   const fieldColumns: Record<string, string> = {};
   if (first) for (const [k, v] of Object.entries(first.columns)) if (v) fieldColumns[k] = v;
