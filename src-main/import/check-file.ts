@@ -2,12 +2,11 @@ import { readFile } from 'node:fs/promises';
 import { needsAction, sortFindings, type Finding } from '../../src-shared/import/findings';
 import { ImportError } from '../../src-shared/import/import-error';
 import type { ImportedTable, ImportQuestion } from '../../src-shared/import/imported-table';
-import { datePatternFindings } from '../../src-shared/import/date-checks';
+import { checkMappedTable } from '../../src-shared/import/check-table';
 import { applyMapping } from '../../src-shared/import/mapping';
 import { guessTemplate } from '../../src-shared/import/mapping-guess';
 import { parseTemplate, type MappingTemplate } from '../../src-shared/import/mapping-template';
 import type { DateOrder } from '../../src-shared/import/text-dates';
-import { formulaErrors, validateRecords } from '../../src-shared/import/validate';
 import { importFile } from './import-file';
 
 /**
@@ -81,12 +80,8 @@ export async function checkFile(file: string, options: CheckOptions = {}): Promi
     findings.push({ code: 'site-sheet-unavailable', severity: 'warning', file, message: `The template joins site attributes from sheet "${template.sites.sheet}", but a text file has no sheets, so areas and site covariates were not read.`, fix: 'Check the workbook itself, or add the site columns to this file and map them.' });
   }
   const mapped = applyMapping(table, template, { dateOrder, siteTable });
-  findings.push(...mapped.findings, ...formulaErrors(table));
-  findings.push(...validateRecords(mapped.records, {
-    file, effortUnit: mapped.effortUnit, hasArea: mapped.hasArea, hasDate: mapped.hasDate,
-    seasonWindow: template.seasonWindow, dateOrderPending: mapped.questions.length > 0 || table.findings.some((f) => f.code === 'mixed-date-order'),
-  }));
-  if (!template.seasonWindow) findings.push(...datePatternFindings(mapped.records, file));
+  // The same record checks the desktop import runs (src-shared/import/check-table.ts).
+  findings.push(...checkMappedTable(table, template, mapped, file).map((l) => l.finding));
   // Name the column of every finding that gives only its letter.
   const names = new Map<string, string>();
   for (const t of [table, siteTable]) t?.columns.forEach((c) => c.letters.forEach((l, s) => l && names.set(`${t.sheets[s]}|${l}`, c.name)));
