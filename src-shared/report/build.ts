@@ -1,0 +1,96 @@
+/**
+ * Builds the annual trend report document from the trend results of each
+ * group (or of the one table), the optional composite and the provenance.
+ */
+import type { ModelSpec } from '../model/spec';
+import type { CompositeResult } from '../trend/composite';
+import { appendixSection, type Provenance } from './appendix';
+import { cautionsSection } from './cautions';
+import { compositeSection } from './composite-section';
+import { groupSection, seasonSpan, type GroupTrend } from './group-section';
+import type { Block, Cell, ReportDocument, Section, SheetTable } from './model';
+import { referenceList } from './references';
+import { changeOverSpan } from './summary-sentence';
+import { coefficientCells, coefficientColumns, indexCells, indexColumns, summaryTable, type SummaryRow } from './tables';
+
+export interface ReportInput {
+  readonly title: string;
+  readonly subtitle?: string;
+  readonly spec: ModelSpec;
+  /** The column the groups are values of ("species"); absent for a single table. */
+  readonly groupColumn?: string;
+  readonly groups: readonly GroupTrend[];
+  readonly composite?: CompositeResult['composite'];
+  /** Cautions beyond the general ones (e.g. why there is no composite). */
+  readonly cautions?: readonly string[];
+  readonly provenance: Provenance;
+}
+
+/** A section id from a group value: letters and digits only, unique within the report. */
+function sectionIds(groups: readonly GroupTrend[]): string[] {
+  const seen = new Map<string, number>();
+  return groups.map((g, i) => {
+    const stem = `group-${g.group.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || i + 1}`;
+    const n = seen.get(stem) ?? 0;
+    seen.set(stem, n + 1);
+    return n ? `${stem}-${n + 1}` : stem;
+  });
+}
+
+function summaryRows(groups: readonly GroupTrend[]): SummaryRow[] {
+  return groups.flatMap((g) => {
+    if (!g.result) return [];
+    const s = g.result.slope;
+    const c = changeOverSpan(s, seasonSpan(g.result.indices).span);
+    const direction = c.upper < 0 ? 'decline' : c.lower > 0 ? 'increase' : 'cannot tell decline from increase';
+    return [{ group: g.label ?? (g.group || 'all'), perSeason: s.perYear, lower: s.lower, upper: s.upper, overSpan: c.perYear, overLower: c.lower, overUpper: c.upper, direction, converged: g.result.fit.converged }];
+  });
+}
+
+function citesOf(sections: readonly Section[]): string[] {
+  return sections.flatMap((s) => s.blocks.flatMap((b: Block) => (b.kind === 'paragraph' ? (b.cites ?? []) : [])));
+}
+
+export function buildTrendReport(input: ReportInput): ReportDocument {
+  if (input.groups.length === 0) throw new RangeError('A report needs the trend of at least one group.');
+  const timeName = input.spec.time?.column ?? 'season';
+  const groupHeader = input.groupColumn ?? 'Group';
+  const ids = sectionIds(input.groups);
+  const fitted = input.groups.filter((g) => g.result);
+  const first = fitted[0]?.result ? seasonSpan(fitted[0].result.indices) : undefined;
+  const spanWords = first ? `${first.first}–${first.last}` : 'over the period';
+  const rows = summaryRows(input.groups);
+  const overview: Section = {
+    id: 'summary',
+    heading: 'Summary',
+    blocks: [
+      summaryTable('summary-table', `Trend of each ${input.groupColumn ?? 'group'}: change a season and over the period, with 95% limits`, groupHeader, rows, spanWords),
+      ...input.groups.filter((g) => !g.result).map((g): Block => ({ kind: 'caution', title: `${g.label ?? g.group}: not fitted`, items: [g.error ?? 'The trend could not be fitted.'] })),
+    ],
+  };
+  const groupSections = input.groups.map((g, i) => groupSection(g, input.spec, ids[i]));
+  const sections: Section[] = [cautionsSection(input.cautions), overview, ...groupSections];
+  if (input.composite) sections.push(compositeSection(input.composite, timeName, !input.groupColumn || input.groupColumn === 'species' ? 'species' : `values of "${input.groupColumn}"`));
+  const label = (g: GroupTrend) => g.label ?? (g.group || 'all');
+  const sheets: SheetTable[] = [
+    { name: 'Trend summary', table: overview.blocks[0] as SheetTable['table'] },
+    {
+      name: 'Indices',
+      table: { kind: 'table', id: 'sheet-indices', caption: 'Annual indices with 95% limits', columns: indexColumns(timeName, groupHeader), rows: fitted.flatMap((g) => indexCells(g.result!.indices, label(g))) },
+    },
+    {
+      name: 'Coefficients',
+      table: { kind: 'table', id: 'sheet-coefficients', caption: 'Model coefficients', columns: coefficientColumns(groupHeader), rows: fitted.flatMap((g): Cell[][] => coefficientCells(g.result!.fit, label(g))) },
+    },
+  ];
+  if (input.composite) sheets.push({ name: 'Composite', table: { kind: 'table', id: 'sheet-composite', caption: 'Composite index with 95% limits', columns: indexColumns(timeName), rows: indexCells(input.composite.indices) } });
+  return {
+    title: input.title,
+    subtitle: input.subtitle ?? '',
+    createdAt: input.provenance.createdAt,
+    sections,
+    appendix: appendixSection(input.provenance, input.spec),
+    references: referenceList(citesOf(sections)),
+    sheets,
+  };
+}
