@@ -42,3 +42,11 @@ export function requireOption(args: ParsedArgs, name: string, what: string): str
   if (!v) throw new UsageError(`Give ${what} with --${name}.`);
   return v;
 }
+
+/** A whole-number option of at least `min`, or undefined when not given. */
+export function wholeNumber(args: ParsedArgs, name: string, min: number): number | undefined {
+  const text = args.options.get(name);
+  if (text === undefined) return undefined;
+  if (!/^\d+$/.test(text.trim()) || Number(text) < min) throw new UsageError(`--${name} takes a whole number of at least ${min}, not "${text}".`);
+  return Number(text);
+}

@@ -4,7 +4,8 @@ import { demo } from './demo';
 import { fit } from './fit';
 import { merge } from './merge';
 import { power } from './power';
+import { report } from './report';
 import { trend } from './trend';
 
 /** Every command, in the order `tallywise help` lists them. */
-export const commands: readonly CliCommand[] = [check, fit, trend, power, merge, demo];
+export const commands: readonly CliCommand[] = [check, fit, trend, power, report, merge, demo];

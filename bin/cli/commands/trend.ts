@@ -11,7 +11,8 @@ import { parsePeriods } from '@shared/trend/period-change';
 import { poolRunner } from '@shared/trend/pool-runner';
 import { analyseTrend, DEFAULT_REPLICATES, type LimitsMethod, type TrendOptions, type TrendResult } from '@shared/trend/trend-analysis';
 import { loadDataTable } from '../../../src-main/data/load-table';
-import { parseArgs, requireOption, type ParsedArgs } from '../args';
+import { parseArgs, requireOption, wholeNumber, type ParsedArgs } from '../args';
+import { progressPrinter } from '../progress';
 import { UsageError, type CliCommand, type CliIO } from '../command';
 import { fitAsText } from '../format/fit-text';
 import { fmt, layoutColumns } from '../format/number';
@@ -163,13 +164,6 @@ function trendOptions(args: ParsedArgs): Pick<TrendOptions, 'base' | 'limits' | 
   };
 }
 
-function wholeNumber(args: ParsedArgs, name: string, min: number): number | undefined {
-  const text = args.options.get(name);
-  if (text === undefined) return undefined;
-  if (!/^\d+$/.test(text.trim()) || Number(text) < min) throw new UsageError(`--${name} takes a whole number of at least ${min}, not "${text}".`);
-  return Number(text);
-}
-
 function parseThresholds(text: string | undefined): number[] {
   if (text === undefined) return [...DEFAULT_THRESHOLDS];
   const parts = text.split(',').map((s) => Number(s.trim()));
@@ -195,18 +189,6 @@ function parseWeights(text: string | undefined): Record<string, number> | undefi
   }
   for (const [k, w] of pairs) if (typeof w !== 'number' || !(w >= 0)) throw new UsageError(`The weight of "${k}" must be a number of at least 0.`);
   return Object.fromEntries(pairs) as Record<string, number>;
-}
-
-/** Progress lines on stderr at every tenth of a stage. */
-function progressPrinter(io: CliIO): (done: number, total: number, stage: string) => void {
-  let last = '';
-  return (done, total, stage) => {
-    const tenth = total > 1 ? Math.floor((10 * done) / total) : -1;
-    const key = `${stage}:${tenth}`;
-    if (key === last) return;
-    last = key;
-    io.err(total > 1 ? `${stage}: ${done} of ${total}` : `${stage} ...`);
-  };
 }
 
 function indexTable(rows: readonly IndexRow[]): string {
