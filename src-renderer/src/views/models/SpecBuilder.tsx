@@ -1,0 +1,202 @@
+import type { ReactNode } from 'react';
+import { distributions, hasZeroPart, type Distribution } from '@shared/model/spec';
+import { distributionNames, type PredictorChoice, type PredictorColumn, type SiteChoice, type SpecDraft, type TableRoles, type TimeChoice } from './spec-draft';
+
+/**
+ * The model builder: species, distribution, predictors, offsets, site and
+ * season terms, the zero part where it applies, the model written out, and
+ * what stops it from being fitted.
+ */
+interface Props {
+  draft: SpecDraft;
+  onChange: (d: SpecDraft) => void;
+  species: readonly string[];
+  columns: readonly PredictorColumn[];
+  roles: TableRoles;
+  equation: readonly string[];
+  problems: readonly string[];
+  busy: boolean;
+  /** Rows left out for a missing offset (when the analyst asked for it). */
+  leftOut: number;
+  /** Shown in place of the Fit button while a fit runs (progress and Cancel). */
+  progress?: ReactNode;
+  /** The last fit's outcome in a sentence (done, cancelled, failed). */
+  note?: ReactNode;
+  onFit: () => void;
+}
+
+function PredictorPicker({ label, columns, chosen, onChange }: { label: string; columns: readonly PredictorColumn[]; chosen: readonly PredictorChoice[]; onChange: (p: PredictorChoice[]) => void }) {
+  if (!columns.length) return <p className="hint">The analysis table has no other columns to use as {label.toLowerCase()}.</p>;
+  const set = (col: PredictorColumn, type: string, reference = '') => {
+    const rest = chosen.filter((p) => p.column !== col.name);
+    if (type === 'numeric' || type === 'factor') {
+      const at = chosen.findIndex((p) => p.column === col.name);
+      const next = [...rest];
+      next.splice(at < 0 ? next.length : at, 0, { column: col.name, type, reference: type === 'factor' ? reference : '' });
+      onChange(next);
+    } else onChange(rest);
+  };
+  return (
+    <table className="plain picker">
+      <caption>{label}</caption>
+      <tbody>
+        {columns.map((col) => {
+          const p = chosen.find((x) => x.column === col.name);
+          return (
+            <tr key={col.name}>
+              <th scope="row">{col.name}</th>
+              <td>
+                <select aria-label={`${label}: ${col.name}`} value={p?.type ?? 'none'} onChange={(e) => set(col, e.target.value)}>
+                  <option value="none">not used</option>
+                  <option value="numeric" disabled={!col.numeric}>
+                    number
+                  </option>
+                  <option value="factor">factor (levels)</option>
+                </select>
+              </td>
+              <td>
+                {p?.type === 'factor' && (
+                  <select aria-label={`Reference level of ${col.name}`} value={p.reference} onChange={(e) => set(col, 'factor', e.target.value)}>
+                    <option value="">against {col.levels[0] ?? '—'} (first)</option>
+                    {col.levels.slice(1).map((l) => (
+                      <option key={l} value={l}>
+                        against {l}
+                      </option>
+                    ))}
+                  </select>
+                )}
+              </td>
+            </tr>
+          );
+        })}
+      </tbody>
+    </table>
+  );
+}
+
+export function SpecBuilder({ draft, onChange, species, columns, roles, equation, problems, busy, leftOut, progress, note, onFit }: Props) {
+  const set = <K extends keyof SpecDraft>(k: K, v: SpecDraft[K]) => onChange({ ...draft, [k]: v });
+  const chosen = new Set(draft.species);
+  const all = species.length > 0 && species.every((s) => chosen.has(s));
+  const toggle = (s: string) => set('species', species.filter((x) => (x === s ? !chosen.has(s) : chosen.has(x))));
+  const n = draft.species.length;
+  return (
+    <form
+      className="builder"
+      aria-label="Model builder"
+      onSubmit={(e) => {
+        e.preventDefault();
+        if (!busy && !problems.length) onFit();
+      }}
+    >
+      <fieldset className="builder-part">
+        <legend>Species</legend>
+        <label className="check is-all">
+          <input type="checkbox" checked={all} onChange={() => set('species', all ? [] : [...species])} /> All species ({species.length})
+        </label>
+        <div className="check-list">
+          {species.map((s) => (
+            <label key={s} className="check">
+              <input type="checkbox" checked={chosen.has(s)} onChange={() => toggle(s)} /> {s}
+            </label>
+          ))}
+        </div>
+        {n > 1 && <p className="hint">A batch: the same model is fitted to each species on its own.</p>}
+      </fieldset>
+
+      <fieldset className="builder-part">
+        <legend>Counts</legend>
+        <label className="field">
+          <span>Distribution</span>
+          <select aria-label="Distribution" value={draft.distribution} onChange={(e) => set('distribution', e.target.value as Distribution)}>
+            {distributions.map((d) => (
+              <option key={d} value={d}>
+                {distributionNames[d]}
+              </option>
+            ))}
+          </select>
+        </label>
+        <div className="field-row">
+          <label className="field">
+            <span>Site effect</span>
+            <select aria-label="Site effect" value={draft.site} onChange={(e) => set('site', e.target.value as SiteChoice)}>
+              <option value="none">none</option>
+              <option value="fixed">fixed (one per site)</option>
+              <option value="random">random (normal)</option>
+            </select>
+          </label>
+          {draft.site === 'random' && (
+            <label className="field is-narrow">
+              <span>Quadrature points</span>
+              <input
+                aria-label="Quadrature points"
+                type="number"
+                min={1}
+                max={50}
+                step={1}
+                value={draft.quadraturePoints}
+                onChange={(e) => set('quadraturePoints', Number(e.target.value))}
+              />
+            </label>
+          )}
+        </div>
+        <label className="field">
+          <span>Season term</span>
+          <select aria-label="Season term" value={draft.time} onChange={(e) => set('time', e.target.value as TimeChoice)}>
+            <option value="annual">one effect per season (annual)</option>
+            <option value="linear">log-linear trend over seasons</option>
+            <option value="none">no season term</option>
+          </select>
+        </label>
+        <div className="offsets" role="group" aria-label="Offsets">
+          <span className="field-label">Offsets (log, coefficient 1)</span>
+          <label className="check">
+            <input type="checkbox" disabled={!roles.effort} checked={draft.effortOffset && !!roles.effort} onChange={(e) => set('effortOffset', e.target.checked)} />
+            effort {roles.effort ? `(${roles.effort.unit}, ${roles.effort.column})` : '(no effort in the records)'}
+          </label>
+          <label className="check">
+            <input type="checkbox" disabled={!roles.area} checked={draft.areaOffset && !!roles.area} onChange={(e) => set('areaOffset', e.target.checked)} />
+            area {roles.area ? `(${roles.area.unit}, ${roles.area.column})` : '(no site areas known)'}
+          </label>
+          <label className="check is-sub">
+            <input type="checkbox" checked={draft.dropBadOffsetRows} onChange={(e) => set('dropBadOffsetRows', e.target.checked)} />
+            leave out rows where an offset is missing or 0
+          </label>
+          {draft.dropBadOffsetRows && leftOut > 0 && <span className="hint">{leftOut} row{leftOut === 1 ? '' : 's'} left out of the fit.</span>}
+        </div>
+      </fieldset>
+
+      <fieldset className="builder-part">
+        <legend>Predictors</legend>
+        <PredictorPicker label="Count part" columns={columns} chosen={draft.predictors} onChange={(p) => set('predictors', p)} />
+        {hasZeroPart(draft.distribution) && (
+          <PredictorPicker label={draft.distribution.startsWith('hurdle') ? 'Zero part (chance of a non-zero count)' : 'Zero part (chance of an extra zero)'} columns={columns} chosen={draft.zeroPredictors} onChange={(p) => set('zeroPredictors', p)} />
+        )}
+      </fieldset>
+
+      <div className="builder-foot">
+      <div className="equation" data-testid="model-equation" aria-label="The model">
+        {equation.map((line) => (
+          <div key={line}>{line}</div>
+        ))}
+      </div>
+      {problems.length > 0 && (
+        <ul className="spec-problems" data-testid="spec-problems" role="alert">
+          {problems.map((p) => (
+            <li key={p}>{p}</li>
+          ))}
+        </ul>
+      )}
+      {note}
+      {progress ?? (
+        <div className="builder-actions">
+          <button type="submit" className="button is-primary" disabled={busy || problems.length > 0} data-testid="fit-button">
+            {n > 1 ? `Fit for ${n} species` : 'Fit the model'}
+          </button>
+          {problems.length > 0 && <span className="hint">Put right what is listed above to fit.</span>}
+        </div>
+      )}
+      </div>
+    </form>
+  );
+}
