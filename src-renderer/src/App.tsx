@@ -6,6 +6,8 @@ import { RecordsView } from './views/records/RecordsView';
 import { DateOrderDialog } from './views/records/DateOrderDialog';
 import { RolesDialog } from './views/records/RolesDialog';
 import { useProject } from './views/records/use-project';
+import { ModelsView } from './views/models/ModelsView';
+import { useModels } from './views/models/use-models';
 import { StageRail, type Stage } from './components/StageRail';
 import { Cautions } from './components/Cautions';
 import { RecoveryBanner } from './components/RecoveryBanner';
@@ -23,6 +25,7 @@ export function App() {
   const [stage, setStage] = useState<Stage>('programme');
   const [dropping, setDropping] = useState(false);
   const controls = useProject();
+  const models = useModels();
   const { project } = controls;
   const latest = useRef(controls);
   latest.current = controls;
@@ -55,9 +58,11 @@ export function App() {
 
   // A newly opened or imported project is shown on the Records stage.
   const opened = project ? `${project.path ?? ''}|${project.document.createdAt}|${project.sources.length}` : '';
+  const resetModels = models.reset;
   useEffect(() => {
     if (opened) setStage('records');
-  }, [opened]);
+    resetModels();
+  }, [opened, resetModels]);
 
   const programmeTitle = load.state === 'ready' ? load.overview.programme : 'Tallywise';
   const title = project ? project.name : programmeTitle;
@@ -138,6 +143,7 @@ export function App() {
           </>
         )}
         {stage === 'records' && <RecordsView controls={controls} />}
+        {stage === 'models' && <ModelsView controls={controls} models={models} overview={load.state === 'ready' ? load.overview : null} />}
       </main>
       {controls.question && <DateOrderDialog question={controls.question} onAnswer={controls.answerQuestion} />}
       {controls.rolesQuestion && <RolesDialog question={controls.rolesQuestion} onDone={controls.answerRoles} />}

@@ -1,8 +1,9 @@
-export type Stage = 'programme' | 'records';
+export type Stage = 'programme' | 'records' | 'models';
 
 const stages: { id: Stage; label: string; hint: string }[] = [
   { id: 'programme', label: 'Programme', hint: 'Sites, seasons and species in the project' },
   { id: 'records', label: 'Records', hint: 'Import season workbooks, check and clean the counts' },
+  { id: 'models', label: 'Models', hint: 'Fit count models per species, compare them and check the diagnostics' },
 ];
 
 /** The column of work stages down the left edge. */
