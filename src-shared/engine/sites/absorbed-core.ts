@@ -25,17 +25,10 @@ import type { FitControl } from '../types';
 import { FitCancelled, FitInputError } from '../types';
 import type { AbsorbedState } from './absorbed-newton';
 import { absorbedNewton, absorbedWork } from './absorbed-newton';
-import { groupBySite } from './site-groups';
+import { groupBySite, type SiteRows } from './site-groups';
 
-export interface AbsorbedInput {
-  readonly y: Float64Array;
-  /** Column-major n x p covariates; an intercept column, if any, is dropped as aliased. */
-  readonly x: Float64Array;
-  readonly n: number;
-  readonly p: number;
-  readonly offset: Float64Array | null;
-  readonly site: Int32Array;
-  readonly nSites: number;
+/** `x`: an intercept column, if any, is dropped as aliased. */
+export interface AbsorbedInput extends SiteRows {
   readonly family: 'poisson' | 'negbin';
   readonly control?: FitControl;
 }

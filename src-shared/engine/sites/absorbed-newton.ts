@@ -22,19 +22,11 @@
 import { crossprodVec, solveSpd, weightedCrossprod } from '../linalg/dense';
 import type { FitControl } from '../types';
 import { FitCancelled } from '../types';
+import type { SiteRows } from './site-groups';
 import { countConstant, countKernel, countWeight } from './count-derivatives';
 
-export interface AbsorbedData {
-  readonly y: Float64Array;
-  /** Column-major n x p covariates without an intercept. */
-  readonly x: Float64Array;
-  readonly n: number;
-  readonly p: number;
-  /** Offset per row (log scale), or null. */
-  readonly offset: Float64Array | null;
-  /** Site index per row, 0..nSites-1; rows grouped by site. */
-  readonly site: Int32Array;
-  readonly nSites: number;
+/** `x` without an intercept; rows grouped by site. */
+export interface AbsorbedData extends SiteRows {
   /** nSites + 1 boundaries: the rows of site s are start[s]..start[s+1]-1. */
   readonly start: Int32Array;
 }

@@ -20,17 +20,10 @@ import type { GroupedData } from './aghq-marginal';
 import { marginalEvaluator } from './aghq-marginal';
 import { hessianFromGradient } from './numeric-hessian';
 import { maximizeBfgs } from './quasi-newton';
-import { groupBySite } from './site-groups';
+import { groupBySite, type SiteRows } from './site-groups';
 
-export interface RandomInput {
-  readonly y: Float64Array;
-  /** Column-major n x p design, with intercept. */
-  readonly x: Float64Array;
-  readonly n: number;
-  readonly p: number;
-  readonly offset: Float64Array | null;
-  readonly site: Int32Array;
-  readonly nSites: number;
+/** `x`: the design with its intercept. */
+export interface RandomInput extends SiteRows {
   readonly negbin: boolean;
   readonly quadraturePoints: number;
   readonly control?: FitControl;

@@ -12,3 +12,17 @@ export function groupBySite(site: Int32Array, nSites: number): { order: Int32Arr
   for (let i = 0; i < site.length; i++) order[fill[site[i]]++] = i;
   return { order, start };
 }
+
+/** The numbers every site-effect fitter starts from. */
+export interface SiteRows {
+  readonly y: Float64Array;
+  /** Column-major n x p covariates. */
+  readonly x: Float64Array;
+  readonly n: number;
+  readonly p: number;
+  /** Offset per row (log scale), or null. */
+  readonly offset: Float64Array | null;
+  /** Site index per row, 0..nSites-1. */
+  readonly site: Int32Array;
+  readonly nSites: number;
+}
