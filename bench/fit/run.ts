@@ -9,48 +9,11 @@ import { join, resolve } from 'node:path';
 import { CholeskyDecomposition, Matrix } from 'ml-matrix';
 import { tableFromTexts } from '../../src-shared/data/table';
 import { fitCountGlm } from '../../src-shared/engine/count-fit';
+import { gamma, poisson, rng } from '../../test/engine/helpers/simulate';
 import { solveSpd, weightedCrossprod } from '../../src-shared/engine/linalg/dense';
 import { parseModelSpec } from '../../src-shared/model/spec';
 
 const REPEATS = 3;
-
-/** Seeded uniform generator (mulberry32). */
-function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
-
-function poisson(u: () => number, mu: number): number {
-  let k = 0;
-  let p = Math.exp(-mu);
-  let c = p;
-  const x = u();
-  while (x > c && k < 1000) {
-    k++;
-    p *= mu / k;
-    c += p;
-  }
-  return k;
-}
-
-function gamma(u: () => number, shape: number): number {
-  // Marsaglia & Tsang for shape >= 1
-  const d = shape - 1 / 3;
-  const c = 1 / Math.sqrt(9 * d);
-  for (;;) {
-    const x = Math.sqrt(-2 * Math.log(1 - u())) * Math.cos(2 * Math.PI * u());
-    let v = 1 + c * x;
-    if (v <= 0) continue;
-    v = v * v * v;
-    if (Math.log(u()) < 0.5 * x * x + d * (1 - v + Math.log(v))) return d * v;
-  }
-}
 
 /** n rows: 8 numeric predictors, 2 factors (3 and 4 levels), effort offset; NB2 counts with theta 2. */
 function synthetic(n: number): { header: string[]; rows: string[][] } {
@@ -65,7 +28,7 @@ function synthetic(n: number): { header: string[]; rows: string[][] } {
     const effort = 0.5 + u() * 3;
     let eta = 0.4 + Math.log(effort) + 0.2 * f1 - 0.1 * f2;
     x.forEach((v, k) => (eta += b[k] * v));
-    const y = poisson(u, Math.exp(eta) * (gamma(u, 2) / 2));
+    const y = poisson(u, Math.exp(eta) * (gamma(u, 2, 1) / 2));
     rows.push([String(y), effort.toFixed(4), ...x.map((v) => v.toFixed(5)), `a${f1}`, `b${f2}`]);
   }
   return { header, rows };
