@@ -14,6 +14,18 @@ export const flagLabels: Record<string, string> = {
   'date-unreadable': 'no readable date',
   'repeated-visit': 'repeated row',
   'name-variant': 'name variant',
+  'negative-count': 'negative count',
+  'non-integer-count': 'not a whole number',
+  'count-not-finite': 'not a count',
+  'huge-count': 'very large count',
+  'effort-zero': 'zero effort',
+  'effort-negative': 'negative effort',
+  'effort-implausible': 'unusual effort',
+  'area-missing': 'no area',
+  'site-missing': 'no site',
+  'single-visit-site': 'one visit only',
+  'date-outside-season': 'outside the season',
+  'formula-error': 'formula error',
 };
 
 export function flagLabel(code: string): string {
