@@ -1,4 +1,5 @@
 import { useEffect, useRef, useState } from 'react';
+import { DialogForm } from './DialogForm';
 
 /** Asks for a short reason before an action that needs one (leaving records out). */
 export function ReasonDialog({ title, detail, initial, confirm, onDone }: { title: string; detail: string; initial: string; confirm: string; onDone(reason: string | null): void }) {
@@ -7,21 +8,7 @@ export function ReasonDialog({ title, detail, initial, confirm, onDone }: { titl
   useEffect(() => input.current?.select(), []);
   const ok = reason.trim() !== '';
   return (
-    <div className="dialog-backdrop">
-      <form
-        className="dialog"
-        role="dialog"
-        aria-modal="true"
-        aria-labelledby="reason-title"
-        onSubmit={(e) => {
-          e.preventDefault();
-          if (ok) onDone(reason.trim());
-        }}
-        onKeyDown={(e) => {
-          if (e.key === 'Escape') onDone(null);
-        }}
-      >
-        <h2 id="reason-title">{title}</h2>
+    <DialogForm id="reason-title" title={title} onSubmit={() => ok && onDone(reason.trim())} onCancel={() => onDone(null)}>
         <p>{detail}</p>
         <label className="field">
           <span>Reason (kept in the change log)</span>
@@ -36,7 +23,6 @@ export function ReasonDialog({ title, detail, initial, confirm, onDone }: { titl
             {confirm}
           </button>
         </div>
-      </form>
-    </div>
+    </DialogForm>
   );
 }

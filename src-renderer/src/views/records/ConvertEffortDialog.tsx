@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { DialogForm } from '../../components/DialogForm';
 import { effortUnitInfo, effortUnits, isEffortUnit, type EffortUnit } from '@shared/import/units';
 
 /**
@@ -20,19 +21,12 @@ export function ConvertEffortDialog({ count, unit, onDone }: { count: number; un
   const factor = effortUnitInfo(typed).factor / effortUnitInfo(readAs).factor;
   const same = typed === readAs;
   return (
-    <div className="dialog-backdrop">
-      <form
-        className="dialog"
-        role="dialog"
-        aria-modal="true"
-        aria-labelledby="convert-title"
-        onSubmit={(e) => {
-          e.preventDefault();
-          if (!same) onDone({ factor, fromUnit: readAs, toUnit: typed, reason: reason.trim() });
-        }}
-        onKeyDown={(e) => e.key === 'Escape' && onDone(null)}
-      >
-        <h2 id="convert-title">Correct the effort unit ({count} record{count === 1 ? '' : 's'})</h2>
+    <DialogForm
+      id="convert-title"
+      title={`Correct the effort unit (${count} record${count === 1 ? '' : 's'})`}
+      onSubmit={() => !same && onDone({ factor, fromUnit: readAs, toUnit: typed, reason: reason.trim() })}
+      onCancel={() => onDone(null)}
+    >
         <p>Use this when a volunteer wrote the effort in another unit than the column asks for.</p>
         <div className="field-row">
           <label className="field">
@@ -65,7 +59,6 @@ export function ConvertEffortDialog({ count, unit, onDone }: { count: number; un
             Convert
           </button>
         </div>
-      </form>
-    </div>
+    </DialogForm>
   );
 }

@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { DialogForm } from '../../components/DialogForm';
 import type { ColumnRoles } from '@shared/host/contract';
 import { effortUnits, isEffortUnit, unitFromHeader, type EffortUnit } from '@shared/import/units';
 import type { RolesQuestion } from './use-project';
@@ -53,19 +54,7 @@ export function RolesDialog({ question, onDone }: { question: RolesQuestion; onD
   const result = rolesFrom(choice, effectiveUnit);
   const fileName = question.path.replace(/^.*[\\/]/, '');
   return (
-    <div className="dialog-backdrop">
-      <form
-        className="dialog is-wide"
-        role="dialog"
-        aria-modal="true"
-        aria-labelledby="roles-title"
-        onSubmit={(e) => {
-          e.preventDefault();
-          if (result.roles) onDone(result.roles);
-        }}
-        onKeyDown={(e) => e.key === 'Escape' && onDone(null)}
-      >
-        <h2 id="roles-title">Which column is which in {fileName}?</h2>
+    <DialogForm id="roles-title" wide title={`Which column is which in ${fileName}?`} onSubmit={() => result.roles && onDone(result.roles)} onCancel={() => onDone(null)}>
         <p>{question.message}</p>
         <div className="roles-grid">
           {question.headers.map((h) => (
@@ -103,7 +92,6 @@ export function RolesDialog({ question, onDone }: { question: RolesQuestion; onD
             Import with these columns
           </button>
         </div>
-      </form>
-    </div>
+    </DialogForm>
   );
 }
