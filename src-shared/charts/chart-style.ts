@@ -5,7 +5,7 @@
  * the screen and echarts' server-side SVG renderer for the report draw the
  * same picture.
  */
-import type { EChartsOption } from 'echarts';
+import type { EChartsOption, LineSeriesOption } from 'echarts';
 import { greys } from './palette';
 
 export type ChartOption = EChartsOption;
@@ -101,4 +101,24 @@ export function horizontalLine(value: number, label: string) {
     lineStyle: { color: greys.axis, type: 'dashed' as const, width: 1 },
     data: [{ yAxis: value }],
   };
+}
+
+/**
+ * A shaded band between two curves, drawn as two stacked line series: an
+ * invisible lower edge and the band's width stacked on it. `lower` and
+ * `width` are the series' data points (plain values or [x, y] pairs).
+ */
+export function bandSeries(parts: { id: string; label: string; lower: LineSeriesOption['data']; width: LineSeriesOption['data']; stackAll?: boolean }): LineSeriesOption[] {
+  const common = {
+    type: 'line' as const,
+    stack: parts.id,
+    ...(parts.stackAll ? { stackStrategy: 'all' as const } : {}),
+    silent: true,
+    symbol: 'none',
+    lineStyle: { opacity: 0 },
+  };
+  return [
+    { id: `${parts.id}-lower`, name: `${parts.id}-lower`, ...common, tooltip: { show: false }, data: parts.lower },
+    { id: parts.id, name: parts.label, ...common, itemStyle: { color: greys.band }, areaStyle: { color: greys.band, opacity: 0.8 }, data: parts.width },
+  ];
 }

@@ -5,8 +5,8 @@
  * trend output (shared/cli-contract.md).
  */
 import type { ChartOption } from './chart-style';
-import { categoryAxis, chartFrame, chartNumber, horizontalLine, valueAxis } from './chart-style';
-import { greys, seriesColour } from './palette';
+import { bandSeries, categoryAxis, chartFrame, chartNumber, horizontalLine, valueAxis } from './chart-style';
+import { seriesColour } from './palette';
 
 export interface IndexPoint {
   readonly time: number | string;
@@ -35,29 +35,7 @@ export function indexChart(points: readonly IndexPoint[], parts: IndexChartParts
     xAxis: { ...categoryAxis(parts.timeName ?? 'Season', times), boundaryGap: false },
     yAxis: valueAxis({ name: 'Index (base year = 100)', min: 0 }, 'y'),
     series: [
-      {
-        id: 'limits-lower',
-        name: 'limits-lower',
-        type: 'line',
-        stack: 'limits',
-        silent: true,
-        symbol: 'none',
-        lineStyle: { opacity: 0 },
-        tooltip: { show: false },
-        data: points.map((p) => chartNumber(p.lower)),
-      },
-      {
-        id: 'limits',
-        name: '95% limits',
-        type: 'line',
-        stack: 'limits',
-        silent: true,
-        symbol: 'none',
-        lineStyle: { opacity: 0 },
-        itemStyle: { color: greys.band },
-        areaStyle: { color: greys.band, opacity: 0.8 },
-        data: points.map((p) => chartNumber(p.upper - p.lower)),
-      },
+      ...bandSeries({ id: 'limits', label: '95% limits', lower: points.map((p) => chartNumber(p.lower)), width: points.map((p) => chartNumber(p.upper - p.lower)) }),
       {
         id: 'index',
         name: 'Index',

@@ -6,7 +6,7 @@
  */
 import type { QqEnvelope } from '../diagnostics/qq-envelope';
 import type { ChartOption } from './chart-style';
-import { chartFrame, chartNumber, valueAxis } from './chart-style';
+import { bandSeries, chartFrame, chartNumber, valueAxis } from './chart-style';
 import { attention, greys, seriesColour } from './palette';
 
 export const QQ_TITLE = 'Are the residuals normal? QQ plot with simulation envelope';
@@ -26,31 +26,13 @@ export function qqChart(env: QqEnvelope, modelLabel: string): ChartOption {
     xAxis: valueAxis({ name: 'Standard normal quantile' }, 'x'),
     yAxis: valueAxis({ name: 'Randomized quantile residual' }, 'y'),
     series: [
-      {
-        id: 'envelope-lower',
-        name: 'envelope-lower',
-        type: 'line',
-        stack: 'envelope',
-        stackStrategy: 'all',
-        silent: true,
-        symbol: 'none',
-        lineStyle: { opacity: 0 },
-        tooltip: { show: false },
-        data: pts.map((p) => [chartNumber(p.theoretical), chartNumber(p.lower)]),
-      },
-      {
+      ...bandSeries({
         id: 'envelope',
-        name: `${Math.round(env.level * 100)}% envelope`,
-        type: 'line',
-        stack: 'envelope',
-        stackStrategy: 'all',
-        silent: true,
-        symbol: 'none',
-        lineStyle: { opacity: 0 },
-        itemStyle: { color: greys.band },
-        areaStyle: { color: greys.band, opacity: 0.8 },
-        data: pts.map((p) => [chartNumber(p.theoretical), chartNumber(p.upper - p.lower)]),
-      },
+        label: `${Math.round(env.level * 100)}% envelope`,
+        lower: pts.map((p) => [chartNumber(p.theoretical), chartNumber(p.lower)]),
+        width: pts.map((p) => [chartNumber(p.theoretical), chartNumber(p.upper - p.lower)]),
+        stackAll: true,
+      }),
       {
         id: 'identity',
         name: 'y = x',
