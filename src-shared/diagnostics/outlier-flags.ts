@@ -6,6 +6,7 @@
  */
 import { DiagnosticsInputError, fittedDistribution } from './fitted-distribution';
 import type { FitForDiagnostics } from './fitted-distribution';
+import { upperTail } from './tail-probability';
 
 export interface OutlierFlag {
   /** Table row of the record. */
@@ -44,7 +45,7 @@ export function outlierFlags(fit: FitForDiagnostics, options: OutlierOptions = {
   const flags: OutlierFlag[] = [];
   for (let i = 0; i < dist.n; i++) {
     const y = fit.y[i];
-    const upper = Math.max(0, 1 - dist.cdf(i, y - 1));
+    const upper = upperTail(dist, i, y);
     const lower = lowerTail ? dist.cdf(i, y) : 1;
     const base = { row: fit.rows[i], y, expected: fit.expected[i] };
     if (upper < threshold && upper <= lower) flags.push({ ...base, probability: upper, tail: 'upper' });

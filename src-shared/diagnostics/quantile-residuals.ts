@@ -11,6 +11,7 @@ import { createRng } from '../demo/prng';
 import { normalQuantileAccurate as normalQuantile } from './normal-quantile';
 import type { FitForDiagnostics, FittedDistribution } from './fitted-distribution';
 import { DiagnosticsInputError, fittedDistribution } from './fitted-distribution';
+import { FAR_UPPER, upperTailSum } from './tail-probability';
 
 /** u is kept this far inside (0, 1) on the lower side, so r >= about -8.2 and never infinite. */
 const U_EDGE = 1e-16;
@@ -39,20 +40,6 @@ export interface ResidualOptions {
   readonly uniforms?: ArrayLike<number>;
 }
 
-/** Beyond this F(y - 1) the residual is taken from the upper tail, where 1 - F keeps its digits. */
-const FAR_UPPER = 0.999;
-
-/** P(Y >= from), summed upward from `from` until the terms no longer count. */
-function upperTail(dist: FittedDistribution, i: number, from: number): number {
-  const mu = dist.parameters(i).mu;
-  let acc = 0;
-  for (let k = from; k < from + 1e6; k++) {
-    const p = dist.mass(i, k);
-    acc += p;
-    if (k > mu && p <= acc * 1e-17) break;
-  }
-  return acc;
-}
 
 /**
  * The residual of a count y given its fitted distribution and a uniform v:
@@ -64,7 +51,7 @@ export function quantileResidualOf(dist: FittedDistribution, i: number, y: numbe
   const lower = dist.cdf(i, y - 1);
   const upper = Math.max(lower, dist.cdf(i, y));
   if (lower > FAR_UPPER) {
-    const atLeast = upperTail(dist, i, y);
+    const atLeast = upperTailSum(dist, i, y);
     const at = dist.mass(i, y);
     const rest = Math.min(1 - U_EDGE, Math.max(Number.MIN_VALUE, atLeast - at + (1 - v) * at));
     return { residual: -normalQuantile(rest), lower, upper };

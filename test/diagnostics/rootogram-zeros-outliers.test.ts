@@ -1,7 +1,8 @@
 /**
  * Hanging rootogram geometry (Kleiber & Zeileis 2016: bars of height
  * sqrt(observed) hang from the curve sqrt(expected), so bottom =
- * sqrt(e) - sqrt(o)), outlier tail probabilities against R's ppois (fixture),
+ * sqrt(e) - sqrt(o)), outlier tail probabilities against R's ppois and
+ * pnbinom (fixture),
  * per-effort moments, and the messages for bad input.
  */
 import { describe, expect, it } from 'vitest';
@@ -80,6 +81,19 @@ describe('outlier flags (R: 1 - ppois(y - 1, mu) from the fixture)', () => {
     expect(lower.length).toBeGreaterThan(0);
     for (const f of lower) expect(Math.abs(f.probability - quineRef.poisson.cdfUpper[f.row])).toBeLessThan(1e-4 * quineRef.poisson.cdfUpper[f.row]);
     expect(() => outlierFlags(fit, { threshold: 0.7 })).toThrow(/between 0 and 0.5/);
+  });
+});
+
+describe('outlier flags under a negative binomial (R: 1 - pnbinom(y - 1, size = theta, mu) from the fixture)', () => {
+  const fit = quineFit('negbin');
+  it('flags the records whose upper tail is below the threshold, with R\'s tail probabilities', () => {
+    // The NB tails are heavier than the Poisson's: 0.01 gives a handful of quine's 146 pupils.
+    const out = outlierFlags(fit, { threshold: 0.01 });
+    const refTail = quineRef.negbin.cdfLower.map((f) => 1 - f);
+    const expectRows = refTail.map((p, i) => (p < 0.01 ? i : -1)).filter((i) => i >= 0);
+    expect(expectRows.length).toBeGreaterThan(0);
+    expect(out.flags.map((f) => f.row).sort((a, b) => a - b)).toEqual(expectRows);
+    for (const f of out.flags) expect(Math.abs(f.probability - refTail[f.row])).toBeLessThan(1e-3 * refTail[f.row]);
   });
 });
 
