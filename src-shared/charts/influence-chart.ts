@@ -13,7 +13,8 @@ export function influenceTitle(coefficient: string): string {
   return `Does one site drive the result? Change in ${coefficient} without each site`;
 }
 
-export function influenceChart(infl: SiteInfluence): ChartOption {
+/** `meaning` says in words what the coefficient measures (e.g. "the trend per season"). */
+export function influenceChart(infl: SiteInfluence, meaning?: string): ChartOption {
   const se = infl.se;
   const missing = infl.sites.filter((s) => s.change === null).length;
   const data = infl.sites.map((s) => ({
@@ -23,12 +24,17 @@ export function influenceChart(infl: SiteInfluence): ChartOption {
     cooksDistance: chartNumber(s.cooksDistance),
     itemStyle: { color: s.change !== null && Math.abs(s.change) > se ? attention : seriesColour(0) },
   }));
+  const largest = infl.sites.reduce<(typeof infl.sites)[number] | null>((a, s) => (s.change !== null && (!a || Math.abs(s.change) > Math.abs(a.change ?? 0)) ? s : a), null);
+  const largestNote = largest && se > 0 ? ` Largest change: ${largest.site}, ${chartNumber(largest.change)} (${Math.round((100 * Math.abs(largest.change ?? 0)) / se)}% of a standard error).` : '';
+  const frame = chartFrame({
+    title: influenceTitle(infl.coefficient),
+    subtitle: `${meaning ? `${infl.coefficient} is ${meaning}. ` : ''}${infl.methodNote} Estimate ${chartNumber(infl.estimate)}, standard error ${chartNumber(se)}.${largestNote}${missing ? ` ${missing} site${missing > 1 ? 's' : ''} without a value.` : ''}`,
+    legend: false,
+  });
   return {
-    ...chartFrame({
-      title: influenceTitle(infl.coefficient),
-      subtitle: `${infl.methodNote} Estimate ${chartNumber(infl.estimate)}, standard error ${chartNumber(se)}.${missing ? ` ${missing} site${missing > 1 ? 's' : ''} without a value.` : ''}`,
-      legend: false,
-    }),
+    ...frame,
+    // Room under the title for a subtitle of three lines.
+    grid: { ...(frame.grid as object), top: 120 },
     xAxis: categoryAxis(infl.siteColumn, infl.sites.map((s) => s.site)),
     yAxis: valueAxis({ name: `Change in ${infl.coefficient} (linear-predictor scale)` }, 'y'),
     series: [

@@ -17,6 +17,8 @@ export { simulateResponses } from './simulate-responses';
 export { meanVarianceBySite } from './mean-variance';
 export type { CurvePoint, MeanVariance, MeanVarianceOptions, SiteMoments } from './mean-variance';
 export { siteInfluence, siteInfluenceByRefit, siteInfluenceOneStep, ONE_STEP_NOTE, REFIT_NOTE } from './site-influence';
+export { influenceCoefficient } from './influence-coefficient';
+export type { InfluenceCoefficient } from './influence-coefficient';
 export type { InfluenceMethod, RefitFunction, RefitInfluenceOptions, SiteInfluence, SiteInfluenceOptions, SiteInfluenceRow } from './site-influence';
 export { outlierFlags } from './outlier-flags';
 export type { OutlierFlag, OutlierFlags, OutlierOptions } from './outlier-flags';
