@@ -11,7 +11,8 @@ import { greys, seriesColour } from './palette';
 
 export const MEAN_VARIANCE_TITLE = 'Are the counts overdispersed? Variance against mean by site';
 
-export function meanVarianceChart(mv: MeanVariance): ChartOption {
+/** `negbinFrom` names the model the curve's theta comes from when it is not the model of the other charts. */
+export function meanVarianceChart(mv: MeanVariance, negbinFrom?: string): ChartOption {
   const shown = mv.sites.filter((s) => s.mean > 0 && s.variance > 0);
   const hidden = mv.sites.length - shown.length;
   const unit = mv.effortColumn ? ` per unit of ${mv.effortColumn}` : ' per record';
@@ -20,6 +21,8 @@ export function meanVarianceChart(mv: MeanVariance): ChartOption {
     hidden ? `${hidden} site${hidden > 1 ? 's' : ''} with a mean or variance of 0 not shown on the log scale.` : '',
     mv.singleRecordSites.length ? `${mv.singleRecordSites.length} site${mv.singleRecordSites.length > 1 ? 's' : ''} with one record left out.` : '',
     mv.effortColumn ? `Curves drawn for the mean effort per record (${chartNumber(mv.meanEffort)}).` : '',
+    mv.negbin && negbinFrom ? `Negative-binomial curve from ${negbinFrom}.` : '',
+    mv.negbin ? '' : 'Fit a negative binomial to see its curve.',
   ];
   const curve = (pts: { mean: number; variance: number }[]) => pts.map((p) => [chartNumber(p.mean), chartNumber(p.variance)]);
   return {

@@ -17,6 +17,9 @@ export function residualsTitle(column: string): string {
 
 const RESIDUAL_AXIS = 'Randomized quantile residual (standard normal scale)';
 
+/** The third value of a point is its table row: kept for the link to the records, left out of the tooltip. */
+export const POINT_ENCODE = { x: 0, y: 1, tooltip: [0, 1] };
+
 function referenceLines() {
   return {
     silent: true,
@@ -28,7 +31,7 @@ function referenceLines() {
 }
 
 function subtitle(res: QuantileResiduals): string {
-  return [`${res.residual.length} records; residuals drawn with seed ${res.seed}. About 95% of them lie between -2 and 2 when the model fits.`, res.note ?? ''].join(' ').trim();
+  return [`${res.residual.length} rows of the fitted table; residuals drawn with seed ${res.seed}. About 95% of them lie between -2 and 2 when the model fits.`, res.note ?? ''].join(' ').trim();
 }
 
 export function residualsVsFittedChart(res: QuantileResiduals, modelLabel: string): ChartOption {
@@ -38,18 +41,19 @@ export function residualsVsFittedChart(res: QuantileResiduals, modelLabel: strin
     ...chartFrame({ title: RESIDUALS_FITTED_TITLE, subtitle: subtitle(res) }),
     xAxis: valueAxis({ name: positive ? 'Fitted count per record (log scale)' : 'Fitted count per record', log: positive }, 'x'),
     yAxis: valueAxis({ name: RESIDUAL_AXIS }, 'y'),
-    series: [{ id: 'residuals', name: modelLabel, type: 'scatter', symbolSize: 5, itemStyle: { color: seriesColour(0), opacity: 0.7 }, data, markLine: referenceLines() }],
+    series: [{ id: 'residuals', name: modelLabel, type: 'scatter', symbolSize: 5, itemStyle: { color: seriesColour(0), opacity: 0.7 }, encode: POINT_ENCODE, data, markLine: referenceLines() }],
   };
 }
 
 export function residualsByGroupChart(res: QuantileResiduals, groups: ResidualGroups, modelLabel: string): ChartOption {
-  const data = Array.from(res.residual, (r, i) => [groups.levelOf[i], chartNumber(r), res.rows[i]]);
+  // x is the level's name (a category axis takes names), so the tooltip names the site or season.
+  const data = Array.from(res.residual, (r, i) => [groups.levels[groups.levelOf[i]], chartNumber(r), res.rows[i]]);
   return {
     ...chartFrame({ title: residualsTitle(groups.column), subtitle: subtitle(res) }),
     xAxis: categoryAxis(groups.column, groups.levels),
     yAxis: valueAxis({ name: RESIDUAL_AXIS }, 'y'),
     series: [
-      { id: 'residuals', name: modelLabel, type: 'scatter', symbolSize: 5, itemStyle: { color: seriesColour(0), opacity: 0.6 }, data, markLine: referenceLines() },
+      { id: 'residuals', name: modelLabel, type: 'scatter', symbolSize: 5, itemStyle: { color: seriesColour(0), opacity: 0.6 }, encode: POINT_ENCODE, data, markLine: referenceLines() },
       {
         id: 'median',
         name: `Median per ${groups.column}`,
@@ -57,7 +61,7 @@ export function residualsByGroupChart(res: QuantileResiduals, groups: ResidualGr
         symbol: 'rect',
         symbolSize: [14, 3],
         itemStyle: { color: greys.ink },
-        data: groups.median.map((m, k) => [k, chartNumber(m)]),
+        data: groups.median.map((m, k) => [groups.levels[k], chartNumber(m)]),
         z: 3,
       },
     ],

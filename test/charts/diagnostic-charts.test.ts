@@ -9,6 +9,7 @@
 import { describe, expect, it } from 'vitest';
 import type { ChartOption } from '@shared/charts';
 import {
+  chartNumber,
   attention,
   FREQUENCY_TITLE,
   frequencyChart,
@@ -128,6 +129,8 @@ describe('residual charts', () => {
     expect(titleOf(o)).toBe('Is anything left over? Residuals by Age');
     const [points, median] = seriesOf(o);
     expect(points.data).toHaveLength(146);
+    // Each point sits at its record's level, by name (the tooltip shows it), and keeps its table row.
+    (points.data as [string, number, number][]).forEach((p, i) => expect([p[0], p[2]]).toEqual([groups.levels[groups.levelOf[i]], res.rows[i]]));
     expect(median.id).toBe('median');
     expect(median.data).toHaveLength(4);
     expect(axisName(o, 'xAxis')).toBe('Age');
@@ -183,6 +186,14 @@ describe('site charts on invented data', () => {
     expect(filled(svg, greys.observed)).toBe(s[0].data.length + 1);
   });
 
+  it('mean-variance: names the model the NB curve comes from, and asks for one when there is none', () => {
+    const mv = meanVarianceBySite(table, fit, { siteColumn: 'site' });
+    expect((meanVarianceChart(mv, 'Negative binomial, season linear').title as { subtext: string }).subtext).toContain('Negative-binomial curve from Negative binomial, season linear.');
+    const poisson = meanVarianceChart(meanVarianceBySite(table, { ...fit, theta: null }, { siteColumn: 'site' }));
+    expect(seriesOf(poisson).map((x) => x.id)).toEqual(['sites', 'poisson']);
+    expect((poisson.title as { subtext: string }).subtext).toContain('Fit a negative binomial to see its curve.');
+  });
+
   it('influence: a bar per site, the SE lines, the method said', () => {
     const infl = siteInfluenceOneStep(table, spec, fit, { coefficient: 'season', siteColumn: 'site' });
     const o = influenceChart(infl);
@@ -196,6 +207,15 @@ describe('site charts on invented data', () => {
     checkPlain(o);
     const svg = renderSvg(o);
     expect(filled(svg, seriesColour(0)) + filled(svg, attention)).toBe(12);
+  });
+
+  it('influence: says in words what the coefficient measures when told', () => {
+    const infl = siteInfluenceOneStep(table, spec, fit, { coefficient: 'season', siteColumn: 'site' });
+    const sub = (influenceChart(infl, 'the trend per season').title as { subtext: string }).subtext;
+    expect(sub.startsWith('season is the trend per season. ')).toBe(true);
+    // The site that moves the estimate most, and by how much of a standard error.
+    const top = infl.sites.reduce((a, x) => (Math.abs(x.change ?? 0) > Math.abs(a.change ?? 0) ? x : a));
+    expect(sub).toContain(`Largest change: ${top.site}, ${chartNumber(top.change)} (${Math.round((100 * Math.abs(top.change!)) / infl.se)}% of a standard error).`);
   });
 
   it('zeros per model: observed and one bar per model', () => {
