@@ -1,11 +1,37 @@
 /**
  * Builds the annual trend report document from the trend results of each
  * group (or of the one table), the optional composite and the provenance.
+ * buildTrendReport(input) is the one entry point.
+ *
+ * Optional fields, each filled from engine outputs by the builder named
+ * (all in src-shared/report unless said); absent fields leave their part out:
+ *   GroupTrend.spec         the group's own ModelSpec (the chosen model; the
+ *                           methods paragraph and appendix use it; default
+ *                           ReportInput.spec)
+ *   GroupTrend.comparison   comparisonDigest(candidates, chosenLabel, reason?)
+ *                           in comparison-digest.ts, from { label, spec,
+ *                           outcome: fitModel(table, spec) } per candidate
+ *   GroupTrend.diagnostics  groupDiagnostics(fitModel(table, spec), label,
+ *                           seed?) in diagnostics-section.ts (rootogram and
+ *                           quantile residuals of the chosen model)
+ *   GroupTrend.data         dataSummary(groupTable, spec) in data-summary.ts
+ *   ReportInput.cleaning    the project's EditLog as is (cleaning-summary.ts
+ *                           groups it by action and reason; the whole log
+ *                           goes to the "Audit log" sheet)
+ *   Provenance.project      { name, sha256 } of the project file (appendix.ts);
+ *                           source files go in Provenance.inputs as before
+ * groupReportParts(table, chosen, others, options) in group-parts.ts makes
+ * spec, comparison, diagnostics and data of a group in one call (it fits
+ * each model once): { ...groupTrend, ...groupReportParts(...) }.
  */
+import type { EditLog } from '../cleaning/edit-entry';
 import type { ModelSpec } from '../model/spec';
 import type { CompositeResult } from '../trend/composite';
 import { appendixSection, type Provenance } from './appendix';
 import { cautionsSection } from './cautions';
+import { auditLogTable, cleaningBlocks } from './cleaning-summary';
+import { comparisonCells, comparisonColumns } from './comparison-section';
+import { dataSummaryCells, dataSummaryColumns } from './data-summary';
 import { compositeSection } from './composite-section';
 import { groupSection, seasonSpan, type GroupTrend } from './group-section';
 import type { Block, Cell, ReportDocument, Section, SheetTable } from './model';
@@ -24,6 +50,8 @@ export interface ReportInput {
   /** Cautions beyond the general ones (e.g. why there is no composite). */
   readonly cautions?: readonly string[];
   readonly provenance: Provenance;
+  /** The cleaning audit log of the records behind the report. */
+  readonly cleaning?: EditLog;
 }
 
 /** A section id from a group value: letters and digits only, unique within the report. */
@@ -51,6 +79,22 @@ function citesOf(sections: readonly Section[]): string[] {
   return sections.flatMap((s) => s.blocks.flatMap((b: Block) => (b.kind === 'paragraph' ? (b.cites ?? []) : [])));
 }
 
+/** The sheets of the optional inputs: model comparison and data summary of every group that has one, the audit log. */
+function optionalSheets(input: ReportInput, groupHeader: string, label: (g: GroupTrend) => string): SheetTable[] {
+  const sheets: SheetTable[] = [];
+  const compared = input.groups.filter((g) => g.comparison);
+  if (compared.length) {
+    sheets.push({ name: 'Model comparison', table: { kind: 'table', id: 'sheet-comparison', caption: 'Models compared for each group, with the one chosen', columns: comparisonColumns(groupHeader), rows: compared.flatMap((g) => comparisonCells(g.comparison!, label(g))) } });
+  }
+  const summarised = input.groups.filter((g) => g.data);
+  if (summarised.length) {
+    const first = summarised[0].data!;
+    sheets.push({ name: 'Data summary', table: { kind: 'table', id: 'sheet-data', caption: 'Sites, visits, counts and effort per season', columns: dataSummaryColumns(first, groupHeader), rows: summarised.flatMap((g) => dataSummaryCells(g.data!, label(g))) } });
+  }
+  if (input.cleaning) sheets.push({ name: 'Audit log', table: auditLogTable(input.cleaning) });
+  return sheets;
+}
+
 export function buildTrendReport(input: ReportInput): ReportDocument {
   if (input.groups.length === 0) throw new RangeError('A report needs the trend of at least one group.');
   const timeName = input.spec.time?.column ?? 'season';
@@ -69,7 +113,9 @@ export function buildTrendReport(input: ReportInput): ReportDocument {
     ],
   };
   const groupSections = input.groups.map((g, i) => groupSection(g, input.spec, ids[i]));
-  const sections: Section[] = [cautionsSection(input.cautions), overview, ...groupSections];
+  const sections: Section[] = [cautionsSection(input.cautions), overview];
+  if (input.cleaning) sections.push({ id: 'cleaning', heading: 'What cleaning changed', blocks: cleaningBlocks(input.cleaning), continues: true });
+  sections.push(...groupSections);
   if (input.composite) sections.push(compositeSection(input.composite, timeName, !input.groupColumn || input.groupColumn === 'species' ? 'species' : `values of "${input.groupColumn}"`));
   const label = (g: GroupTrend) => g.label ?? (g.group || 'all');
   const sheets: SheetTable[] = [
@@ -83,13 +129,14 @@ export function buildTrendReport(input: ReportInput): ReportDocument {
       table: { kind: 'table', id: 'sheet-coefficients', caption: 'Model coefficients', columns: coefficientColumns(groupHeader), rows: fitted.flatMap((g): Cell[][] => coefficientCells(g.result!.fit, label(g))) },
     },
   ];
+  sheets.push(...optionalSheets(input, groupHeader, label));
   if (input.composite) sheets.push({ name: 'Composite', table: { kind: 'table', id: 'sheet-composite', caption: 'Composite index with 95% limits', columns: indexColumns(timeName), rows: indexCells(input.composite.indices) } });
   return {
     title: input.title,
     subtitle: input.subtitle ?? '',
     createdAt: input.provenance.createdAt,
     sections,
-    appendix: appendixSection(input.provenance, input.spec),
+    appendix: appendixSection(input.provenance, input.spec, input.groups.map((g) => ({ group: label(g), spec: g.spec ?? input.spec }))),
     references: referenceList(citesOf(sections)),
     sheets,
   };

@@ -1,9 +1,17 @@
-/** The section of one species (or the one table): summary, index chart and table, flags, methods, coefficients. */
+/**
+ * The section of one species (or the one table): summary, index chart and
+ * table, flags, the model chosen and its comparison, the main diagnostics,
+ * the data behind the trend, methods, coefficients.
+ */
 import { indexChart } from '../charts/index-chart';
 import type { ModelSpec } from '../model/spec';
 import type { DecisionFlags } from '../trend/flags';
 import type { IndexRow } from '../trend/interval';
 import type { TrendResult } from '../trend/trend-analysis';
+import type { ModelComparisonDigest } from './comparison-digest';
+import { comparisonBlocks } from './comparison-section';
+import { dataSummaryBlocks, type DataSummary } from './data-summary';
+import { diagnosticsBlocks, type GroupDiagnostics } from './diagnostics-section';
 import type { Block, ChartBlock, Section } from './model';
 import { limitsParagraph, modelParagraph } from './methods';
 import { formatNumber } from './number-format';
@@ -19,6 +27,14 @@ export interface GroupTrend {
   readonly flags?: DecisionFlags;
   /** Why the group could not be fitted. */
   readonly error?: string;
+  /** The model spec this group's trend was fitted with; `ReportInput.spec` when absent. */
+  readonly spec?: ModelSpec;
+  /** The models compared for this group and the one chosen (comparisonDigest). */
+  readonly comparison?: ModelComparisonDigest;
+  /** Rootogram and quantile residuals of the chosen model (groupDiagnostics). */
+  readonly diagnostics?: GroupDiagnostics;
+  /** Sites, visits, counts and effort per season of the group's table (dataSummary). */
+  readonly data?: DataSummary;
 }
 
 export const CHART_SIZE = { width: 760, height: 420 } as const;
@@ -42,7 +58,8 @@ export function indexChartBlock(id: string, rows: readonly IndexRow[], subject: 
   return { kind: 'chart', id, option: indexChart(rows, { subject, timeName, note }), alt, ...CHART_SIZE };
 }
 
-export function groupSection(g: GroupTrend, spec: ModelSpec, id: string): Section {
+export function groupSection(g: GroupTrend, defaultSpec: ModelSpec, id: string): Section {
+  const spec = g.spec ?? defaultSpec;
   const subject = g.label ?? (g.group || 'the counts');
   const heading = g.label ?? (g.group || 'Trend');
   if (!g.result) {
@@ -62,6 +79,9 @@ export function groupSection(g: GroupTrend, spec: ModelSpec, id: string): Sectio
     blocks.push({ kind: 'list', title: 'Threshold flags', items: g.flags.thresholds.map((t) => t.sentence) });
     blocks.push({ kind: 'caution', title: 'About these flags', items: [g.flags.caution] });
   }
+  if (g.comparison) blocks.push(...comparisonBlocks(`${id}-comparison`, subject, g.comparison));
+  if (g.diagnostics) blocks.push(...diagnosticsBlocks(id, subject, g.diagnostics));
+  if (g.data) blocks.push(...dataSummaryBlocks(`${id}-data`, subject, g.data));
   blocks.push(modelParagraph(spec), limitsParagraph(r));
   blocks.push(coefficientTable(`${id}-coefficients`, `Coefficients of the model for ${subject}`, r.fit, [fitLine(r)]));
   return { id, heading, blocks };

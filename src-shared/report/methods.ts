@@ -1,5 +1,5 @@
 /** The methods paragraphs of a species section, written from the model spec and the trend's method notes. */
-import type { ModelSpec, Term } from '../model/spec';
+import { hasZeroPart, type ModelSpec, type Term } from '../model/spec';
 import type { TrendResult } from '../trend/trend-analysis';
 import type { ParagraphBlock } from './model';
 import type { ReferenceKey } from './references';
@@ -27,7 +27,8 @@ function termWords(t: Term): string {
   }
 }
 
-const list = (xs: readonly string[]) => (xs.length <= 1 ? xs.join('') : `${xs.slice(0, -1).join(', ')} and ${xs[xs.length - 1]}`);
+/** "a", "a and b", "a, b and c". */
+export const andList = (xs: readonly string[]): string => (xs.length <= 1 ? xs.join('') : `${xs.slice(0, -1).join(', ')} and ${xs[xs.length - 1]}`);
 
 /** "Counts were modelled with ..." — the model, its terms, offsets and site effect. */
 export function modelParagraph(spec: ModelSpec): ParagraphBlock {
@@ -39,11 +40,12 @@ export function modelParagraph(spec: ModelSpec): ParagraphBlock {
       ? `Time entered as one effect per value of "${spec.time.column}"${spec.time.base !== undefined ? ` against ${spec.time.base}` : ''}.`
       : `Time entered as one log-linear slope on "${spec.time.column}".`);
   }
-  parts.push(spec.predictors.length ? `Further terms: ${list(spec.predictors.map(termWords))}.` : 'There were no further terms.');
+  parts.push(spec.predictors.length ? `Further terms: ${andList(spec.predictors.map(termWords))}.` : 'There were no further terms.');
   if (spec.offsets.length) {
-    parts.push(`${list(spec.offsets.map((o) => (o.log ? `log("${o.column}")` : `"${o.column}"`)))} entered as ${spec.offsets.length > 1 ? 'offsets' : 'an offset'} (coefficient fixed at 1), so the model describes counts per unit of ${list(spec.offsets.map((o) => `"${o.column}"`))}.`);
+    parts.push(`${andList(spec.offsets.map((o) => (o.log ? `log("${o.column}")` : `"${o.column}"`)))} entered as ${spec.offsets.length > 1 ? 'offsets' : 'an offset'} (coefficient fixed at 1), so the model describes counts per unit of ${andList(spec.offsets.map((o) => `"${o.column}"`))}.`);
   }
-  if (spec.zeroPredictors.length) parts.push(`The zero part had the terms ${list(spec.zeroPredictors.map(termWords))}.`);
+  if (spec.zeroPredictors.length) parts.push(`The zero part had the terms ${andList(spec.zeroPredictors.map(termWords))}.`);
+  else if (hasZeroPart(spec.distribution)) parts.push('The zero part had an intercept only (one chance of an extra zero for every record).');
   if (spec.site?.effect === 'fixed') parts.push(`Each value of "${spec.site.column}" had its own fixed effect.`);
   if (spec.site?.effect === 'random') {
     const q = spec.site.quadraturePoints;

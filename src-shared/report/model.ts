@@ -79,6 +79,8 @@ export interface Section {
   readonly id: string;
   readonly heading: string;
   readonly blocks: readonly Block[];
+  /** Printed straight after the section before it, without starting a page (a short section). */
+  readonly continues?: boolean;
 }
 
 export interface Reference {

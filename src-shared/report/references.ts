@@ -13,6 +13,12 @@ export const REFERENCES = {
   delta: 'Casella, G. & Berger, R.L. (2002) Statistical Inference, 2nd edn. Duxbury (the delta method, section 5.5.4).',
   composite: 'Buckland, S.T., Magurran, A.E., Green, R.E. & Fewster, R.M. (2005) Monitoring change in biodiversity through composite indices. Phil. Trans. R. Soc. B 360:243-254.',
   indicators: 'Gregory, R.D. et al. (2005) Developing indicators for European birds. Phil. Trans. R. Soc. B 360:269-288.',
+  aic: 'Akaike, H. (1974) A new look at the statistical model identification. IEEE Transactions on Automatic Control 19:716-723.',
+  boundaryLr: 'Self, S.G. & Liang, K.-Y. (1987) Asymptotic properties of maximum likelihood estimators and likelihood ratio tests under nonstandard conditions. Journal of the American Statistical Association 82:605-610.',
+  vuong: 'Vuong, Q.H. (1989) Likelihood ratio tests for model selection and non-nested hypotheses. Econometrica 57:307-333.',
+  vuongZeros: 'Wilson, P. (2015) The misuse of the Vuong test for non-nested models to test for zero-inflation. Economics Letters 127:51-53.',
+  rootogram: 'Kleiber, C. & Zeileis, A. (2016) Visualizing count data regressions using rootograms. The American Statistician 70:296-303.',
+  quantileResiduals: 'Dunn, P.K. & Smyth, G.K. (1996) Randomized quantile residuals. Journal of Computational and Graphical Statistics 5:236-244.',
   redList: 'IUCN (2012) IUCN Red List Categories and Criteria, version 3.1, 2nd edn. Gland and Cambridge (the 30%, 50% and 80% reductions of criterion A).',
 } as const;
 
