@@ -114,7 +114,8 @@ function table(ctx: Ctx, t: TableBlock): void {
   doc.moveDown(0.6);
 }
 
-function chart(ctx: Ctx, b: Extract<Block, { kind: 'chart' }>): void {
+/** `keepWith`: room to keep below the chart for what follows it (its reading), so the two share a page. */
+function chart(ctx: Ctx, b: Extract<Block, { kind: 'chart' }>, keepWith = 0): void {
   const { doc } = ctx;
   const svg = ctx.svgs[b.id];
   if (svg === undefined) {
@@ -123,7 +124,7 @@ function chart(ctx: Ctx, b: Extract<Block, { kind: 'chart' }>): void {
   }
   const w = ctx.width;
   const h = (w * b.height) / b.width;
-  ensureRoom(ctx, h + 30);
+  ensureRoom(ctx, h + 30 + keepWith);
   const y = doc.y;
   SVGtoPDF(doc, fitToBox(svg), MARGIN, y, { width: w, height: h, fontCallback: (_f, bold) => (bold ? 'bold' : 'body'), warningCallback: () => {} });
   doc.x = MARGIN;
@@ -150,7 +151,7 @@ function caution(ctx: Ctx, title: string, items: readonly string[]): void {
   doc.moveDown(0.6);
 }
 
-function block(ctx: Ctx, b: Block, refNumber: (k: string) => number): void {
+function block(ctx: Ctx, b: Block, refNumber: (k: string) => number, next?: Block): void {
   switch (b.kind) {
     case 'paragraph': {
       const cites = b.cites?.length ? ` [${[...new Set(b.cites)].map(refNumber).join(', ')}]` : '';
@@ -160,7 +161,7 @@ function block(ctx: Ctx, b: Block, refNumber: (k: string) => number): void {
     case 'table':
       return table(ctx, b);
     case 'chart':
-      return chart(ctx, b);
+      return chart(ctx, b, next?.kind === 'paragraph' ? 50 : 0);
     case 'caution':
       return caution(ctx, b.title, b.items);
     case 'list':
@@ -180,7 +181,7 @@ function section(ctx: Ctx, s: Section, refNumber: (k: string) => number, newPage
   if (newPage) ctx.doc.addPage();
   ensureRoom(ctx, 60);
   text(ctx, s.heading, { font: 'bold', size: 15, gap: 0.4 });
-  for (const b of s.blocks) block(ctx, b, refNumber);
+  s.blocks.forEach((b, i) => block(ctx, b, refNumber, s.blocks[i + 1]));
 }
 
 export interface PdfOptions {
@@ -210,7 +211,7 @@ export function reportPdf(report: ReportDocument, svgs: ChartSvgs, options: PdfO
   text(ctx, report.title, { font: 'bold', size: 20, gap: 0.2 });
   if (report.subtitle) text(ctx, report.subtitle, { size: 11, color: MUTED, gap: 0.2 });
   text(ctx, `Made ${report.createdAt}`, { size: 9, color: MUTED, gap: 1 });
-  report.sections.forEach((s, i) => section(ctx, s, refNumber, i > 1));
+  report.sections.forEach((s, i) => section(ctx, s, refNumber, i > 1 && !s.continues));
   if (report.references.length) {
     section(ctx, { id: 'references', heading: 'References', blocks: [] }, refNumber, true);
     report.references.forEach((r, i) => text(ctx, `${i + 1}. ${r.text}`, { size: 9, gap: 0.3 }));
