@@ -52,6 +52,8 @@ export interface CompositeOptions {
   runner?: FitRunner;
   onProgress?: (done: number, total: number, stage: string) => void;
   signal?: { readonly aborted: boolean };
+  /** A spec of its own for some groups (the model chosen for that species); the others use the common spec. */
+  specs?: Readonly<Record<string, ModelSpec>>;
 }
 
 export interface CompositeResult {
@@ -59,15 +61,18 @@ export interface CompositeResult {
   composite: { indices: IndexRow[]; weights: Record<string, number>; replicates: number; failedReplicates: number; seed: number; method: string };
 }
 
-function groupFits(table: DataTable, by: string, spec: ModelSpec): { keys: string[]; jobs: FitJob[]; tables: DataTable[] } {
+function groupFits(table: DataTable, by: string, specOf: (key: string) => ModelSpec): { keys: string[]; jobs: FitJob[]; tables: DataTable[] } {
   const groups = splitBy(table, by).filter((g) => g.key !== '');
-  return { keys: groups.map((g) => g.key), tables: groups.map((g) => g.table), jobs: groups.map((g) => ({ table: g.table, spec })) };
+  return { keys: groups.map((g) => g.key), tables: groups.map((g) => g.table), jobs: groups.map((g) => ({ table: g.table, spec: specOf(g.key) })) };
 }
 
 export async function compositeTrend(table: DataTable, spec: ModelSpec, by: string, options: CompositeOptions = {}): Promise<CompositeResult> {
   const site = spec.site?.column;
   if (!site) throw new TrendError('bootstrap-needs-site', 'Composite limits resample whole sites: add "site" to the model spec.');
-  const annual = annualTrendSpec(spec, options.base ?? spec.time?.base);
+  const base0 = options.base ?? spec.time?.base;
+  const common = annualTrendSpec(spec, base0);
+  const own = Object.fromEntries(Object.entries(options.specs ?? {}).map(([k, s]) => [k, annualTrendSpec(s, base0)]));
+  const annual = (key: string) => own[key] ?? common;
   const runner = options.runner ?? inThreadRunner;
   const progress = options.onProgress ?? (() => {});
   const R = options.replicates ?? 199;
@@ -77,7 +82,7 @@ export async function compositeTrend(table: DataTable, spec: ModelSpec, by: stri
   const fitted = await runner(point.jobs, { signal: options.signal });
   const species = fitted.map((f, i) => {
     if (!f.ok) throw new TrendError('species-fit-failed', `The trend for ${by} "${point.keys[i]}" could not be fitted: ${f.message}`);
-    return { key: point.keys[i], log: annualLogIndices(point.tables[i], annual, f.outcome, options.base) };
+    return { key: point.keys[i], log: annualLogIndices(point.tables[i], annual(point.keys[i]), f.outcome, options.base) };
   });
   const base = species[0].log.base;
   const weights = Object.fromEntries(species.map((s) => [s.key, options.weights?.[s.key] ?? 1]));
@@ -106,7 +111,7 @@ export async function compositeTrend(table: DataTable, spec: ModelSpec, by: stri
       if (rep.keys.length !== point.keys.length) throw new Error('a species is missing');
       const sp = results.map((f, i) => {
         if (!f.ok || !f.outcome.summary.converged) throw new Error('not fitted');
-        return { key: rep.keys[i], log: annualLogIndices(rep.tables[i], annual, f.outcome, base) };
+        return { key: rep.keys[i], log: annualLogIndices(rep.tables[i], annual(rep.keys[i]), f.outcome, base) };
       });
       const c = compositeLog(sp, weights);
       species[0].log.time.levels.forEach((l, i) => draws[i].push(c[sp[0].log.time.levels.indexOf(l)]));
