@@ -42,16 +42,44 @@ describe('dense linear algebra', () => {
     const p = cols.length;
     const x = Float64Array.from(cols.flat());
     const st = columnStructure(x, n, p);
-    expect(Array.from(st.dense)).toEqual([0, 1, 2, 6]);
-    expect(st.indicator.length).toBe(33);
-    // With few indicator columns the plain blocked kernel is cheaper and is used for all.
-    expect(columnStructure(x.subarray(0, n * 6), n, 6).indicator.length).toBe(0);
+    // The intercept, the 3 dummies and the 30 sites are 0/1 and are taken cell by cell (4 x 30 cells at most).
+    expect(Array.from(st.dense)).toEqual([1, 2, 6]);
+    expect(st.indicator.length).toBe(34);
+    expect(st.cells!.count).toBeLessThanOrEqual(120);
+    // With no 0/1 column there is nothing to group: the plain kernel for all.
+    expect(columnStructure(x.subarray(n, n * 3), n, 2).cells).toBeNull();
     const w = Float64Array.from({ length: n }, () => u());
     for (const ww of [w, null]) {
       const a = weightedCrossprod(x, n, p, ww, undefined, st);
       const b = naiveCrossprod(x, n, p, ww);
       for (let i = 0; i < p * p; i++) expect(Math.abs(a[i] - b[i])).toBeLessThan(1e-10 * Math.max(1, Math.abs(b[i])));
     }
+    // X'v and X b by cell equal the plain sums.
+    const v = Float64Array.from({ length: n }, () => u() - 0.5);
+    const beta = Float64Array.from({ length: p }, () => u() - 0.5);
+    const plainXv = crossprodVec(x, n, p, v);
+    crossprodVec(x, n, p, v, undefined, st).forEach((s, j) => expect(Math.abs(s - plainXv[j])).toBeLessThan(1e-10 * Math.max(1, Math.abs(plainXv[j]))));
+    const off = Float64Array.from({ length: n }, () => u());
+    const plainXb = matVec(x, n, p, beta, off);
+    matVec(x, n, p, beta, off, undefined, st).forEach((s, i) => expect(Math.abs(s - plainXb[i])).toBeLessThan(1e-12 * Math.max(1, Math.abs(plainXb[i]))));
+  });
+
+  it('groups the rows of a small factor design by cell and keeps the sums', () => {
+    // intercept, one numeric and two factors (3 and 4 levels): 2 + 3 dummies, 12 cells
+    const n = 1500;
+    const f1 = Array.from({ length: n }, () => Math.floor(u() * 3));
+    const f2 = Array.from({ length: n }, () => Math.floor(u() * 4));
+    const cols: number[][] = [Array(n).fill(1), Array.from({ length: n }, () => u() * 2 - 1)];
+    for (let l = 1; l < 3; l++) cols.push(f1.map((v) => (v === l ? 1 : 0)));
+    for (let l = 1; l < 4; l++) cols.push(f2.map((v) => (v === l ? 1 : 0)));
+    const p = cols.length;
+    const x = Float64Array.from(cols.flat());
+    const st = columnStructure(x, n, p);
+    expect(st.cells!.count).toBe(12);
+    const w = Float64Array.from({ length: n }, () => u());
+    const a = weightedCrossprod(x, n, p, w, undefined, st);
+    const b = naiveCrossprod(x, n, p, w);
+    for (let i = 0; i < p * p; i++) expect(Math.abs(a[i] - b[i])).toBeLessThan(1e-10 * Math.max(1, Math.abs(b[i])));
   });
 
   it('solves and inverts a symmetric positive definite system', () => {

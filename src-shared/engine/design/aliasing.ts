@@ -14,10 +14,12 @@
  * ratio, 1e-9 (a relative residual length of about 3e-5): a column that is
  * a combination of others up to that is treated as aliased.
  */
+import type { ColumnStructure } from '../linalg/dense';
 import { columnStructure, weightedCrossprod } from '../linalg/dense';
 
-export function findAliased(data: Float64Array, n: number, p: number, tol = 1e-9): number[] {
-  const a = weightedCrossprod(data, n, p, null, undefined, columnStructure(data, n, p));
+/** Positions of the aliased columns; `structure` is the design's column structure when the caller has it. */
+export function findAliased(data: Float64Array, n: number, p: number, tol = 1e-9, structure?: ColumnStructure): number[] {
+  const a = weightedCrossprod(data, n, p, null, undefined, structure ?? columnStructure(data, n, p));
   return aliasedFromCrossprod(a, p, tol);
 }
 
