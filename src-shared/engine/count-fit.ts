@@ -31,6 +31,8 @@ import { clusterIndex, clusterSandwich } from './inference/sandwich';
 import { informationCriteria, logLikelihood, pearsonChi2, totalDeviance } from './inference/likelihood';
 import { scaleCovariance, waldRows } from './inference/wald';
 import { irls } from './irls';
+import type { ColumnStructure } from './linalg/dense';
+import { columnStructure, plainStructure } from './linalg/dense';
 import { countTerms } from './model-terms';
 import { fitNegbin } from './negbin/fit';
 import { sanitizeSummary, warningSentences } from './summary';
@@ -51,6 +53,8 @@ interface Prepared {
   warnings: Warning[];
   siteLevels: string[] | null;
   siteOfRow: Int32Array | null;
+  /** The final design's column structure, computed once for every product with it. */
+  structure: ColumnStructure;
 }
 
 function allZero(): FitInputError {
@@ -119,7 +123,8 @@ function prepare(table: DataTable, spec: ModelSpec): Prepared {
   }
 
   // Aliased columns (later ones dropped; site columns come first and are kept).
-  const aliased = findAliased(design.data, design.n, design.p);
+  let structure = columnStructure(design.data, design.n, design.p);
+  const aliased = findAliased(design.data, design.n, design.p, undefined, structure);
   if (aliased.length) {
     for (const j of aliased) {
       const t = design.termOf[j];
@@ -128,12 +133,13 @@ function prepare(table: DataTable, spec: ModelSpec): Prepared {
       warnings.push(aliasedWarning(design.names[j], label, note));
     }
     design = subsetDesign(design, null, design.names.map((_, j) => j).filter((j) => !aliased.includes(j)));
+    structure = columnStructure(design.data, design.n, design.p);
   }
   if (design.p === 0) throw new FitInputError('empty-model', 'The model has no column left to estimate. Add a predictor or the intercept.');
   if (design.n <= design.p) {
     throw new FitInputError('too-few-rows', `The model has ${design.p} coefficients but only ${design.n} usable rows. Use fewer predictors or more data.`);
   }
-  return { design, y, offset, rows, warnings, siteLevels, siteOfRow: siteIdx };
+  return { design, y, offset, rows, warnings, siteLevels, siteOfRow: siteIdx, structure };
 }
 
 /**
@@ -155,7 +161,7 @@ function nullModelMeans(family: Family, y: Float64Array, offset: Float64Array | 
     for (let i = 0; i < n; i++) mu[i] = Math.exp(b0 + (offset ? offset[i] : 0));
     return mu;
   }
-  const fit = irls({ x: new Float64Array(n).fill(1), n, p: 1, y, offset, family, startBeta: Float64Array.of(b0), control: { ...control, onProgress: undefined } });
+  const fit = irls({ x: new Float64Array(n).fill(1), n, p: 1, y, offset, family, startBeta: Float64Array.of(b0), structure: plainStructure(1), covariance: false, control: { ...control, onProgress: undefined } });
   return fit.mu;
 }
 
@@ -179,18 +185,20 @@ export function fitCountGlm(table: DataTable, spec: ModelSpec, control: FitContr
   let boundary = false;
   let iterations: number;
   let converged: boolean;
+  let nbLogLik: number | null = null;
   if (dist === 'negbin') {
-    const nb = fitNegbin({ x: design.data, n, p, y, offset: off, control });
+    const nb = fitNegbin({ x: design.data, n, p, y, offset: off, control, structure: prep.structure });
     fit = nb.irls;
     theta = nb.theta;
     boundary = nb.boundary;
     family = nb.boundary ? poissonFamily : negbinFamily(nb.theta!);
     iterations = nb.iterations;
     converged = nb.converged;
+    nbLogLik = nb.logLik;
     warnings.push(...nb.warnings);
   } else {
     family = dist === 'poisson' ? poissonFamily : quasiPoissonFamily;
-    fit = irls({ x: design.data, n, p, y, offset: off, family, control });
+    fit = irls({ x: design.data, n, p, y, offset: off, family, control, structure: prep.structure });
     iterations = fit.iterations;
     converged = fit.converged;
     warnings.push(...fit.warnings);
@@ -201,7 +209,8 @@ export function fitCountGlm(table: DataTable, spec: ModelSpec, control: FitContr
   const dfResidual = n - p;
   const pearson = pearsonChi2(family, y, mu);
   const dispersion = pearson / dfResidual;
-  const deviance = totalDeviance(family, y, mu);
+  // The fit's own deviance is at these means (and, for the negative binomial, the final theta).
+  const deviance = fit.deviance;
   const nullDeviance = totalDeviance(family, y, nullModelMeans(family, y, off, control));
 
   // Covariance: model-based (scaled for quasi-Poisson) or site-clustered sandwich.
@@ -238,7 +247,8 @@ export function fitCountGlm(table: DataTable, spec: ModelSpec, control: FitContr
   const covListed = new Float64Array(k * k);
   listed.forEach((a, ia) => listed.forEach((b, ib) => (covListed[ib * k + ia] = cov[b * p + a])));
 
-  const ll = logLikelihood(family, y, mu);
+  // The negative binomial fit has it already (at the same means and theta).
+  const ll = nbLogLik ?? logLikelihood(family, y, mu);
   const df = p + (dist === 'negbin' ? 1 : 0);
   const ic = ll === null ? null : informationCriteria(ll, df, n);
   const summary: FitSummary = sanitizeSummary({

@@ -75,11 +75,7 @@ export function glmCovariance(
   wOut = new Float64Array(n),
   structure?: ColumnStructure,
 ): Float64Array {
-  const link = family.link;
-  for (let i = 0; i < n; i++) {
-    const d = link.muEta(eta[i]);
-    wOut[i] = ((pw ? pw[i] : 1) * d * d) / family.variance(mu[i]);
-  }
+  family.workingWeights(eta, mu, pw, wOut);
   const fin = solveSpd(weightedCrossprod(x, n, p, wOut, undefined, structure), p, new Float64Array(p), true);
   if (!fin || !fin.inverse) {
     throw new FitInputError('singular-information', 'The information matrix at the estimates is singular: some coefficient is not determined by the data. Simplify the model.');
@@ -96,7 +92,7 @@ export function irls(input: IrlsInput): IrlsResult {
   const link = family.link;
   const logLinkFast = link.name === 'log';
   const warnings: Warning[] = [];
-  // Indicator columns (factor levels, sites) need only their own rows in X'WX.
+  // Indicator columns (intercept, factor levels, sites) are handled cell by cell.
   const structure = input.structure ?? columnStructure(x, n, p);
 
   const eta = new Float64Array(n);
@@ -104,11 +100,11 @@ export function irls(input: IrlsInput): IrlsResult {
   let beta: Float64Array | null = null;
   if (input.startBeta) {
     beta = Float64Array.from(input.startBeta);
-    matVec(x, n, p, beta, offset, eta);
+    matVec(x, n, p, beta, offset, eta, structure);
   } else {
     for (let i = 0; i < n; i++) eta[i] = link.linkfun(input.startMu ? input.startMu[i] : family.start(y[i]));
   }
-  for (let i = 0; i < n; i++) mu[i] = link.linkinv(eta[i]);
+  link.linkinvAll(eta, mu);
   let devOld = totalDeviance(family, y, mu, pw);
   if (!Number.isFinite(devOld)) {
     throw new FitInputError('non-finite-start', 'The starting values give a non-finite deviance, so the fit cannot start. Check the response and offsets for extreme values.');
@@ -129,15 +125,14 @@ export function irls(input: IrlsInput): IrlsResult {
     if (control.signal?.aborted) throw new FitCancelled();
     iterations = iter;
     // z holds w * (working response); with the log link mu'(eta) = mu, no second exp.
+    family.workingWeights(eta, mu, pw, w);
     for (let i = 0; i < n; i++) {
       const d = logLinkFast ? mu[i] : link.muEta(eta[i]);
       const off = offset ? offset[i] : 0;
-      const wi = ((pw ? pw[i] : 1) * d * d) / family.variance(mu[i]);
-      w[i] = wi;
-      z[i] = wi * (eta[i] - off + (y[i] - mu[i]) / d);
+      z[i] = w[i] * (eta[i] - off + (y[i] - mu[i]) / d);
     }
     weightedCrossprod(x, n, p, w, xtwx, structure);
-    crossprodVec(x, n, p, z, xtwz);
+    crossprodVec(x, n, p, z, xtwz, structure);
     const sol = solveSpd(xtwx, p, xtwz);
     if (!sol) {
       throw new FitInputError(
@@ -146,8 +141,8 @@ export function irls(input: IrlsInput): IrlsResult {
       );
     }
     let betaNew = sol.x;
-    matVec(x, n, p, betaNew, offset, etaNew);
-    for (let i = 0; i < n; i++) mu[i] = link.linkinv(etaNew[i]);
+    matVec(x, n, p, betaNew, offset, etaNew, structure);
+    link.linkinvAll(etaNew, mu);
     dev = totalDeviance(family, y, mu, pw);
     // Step-halving when the deviance is not finite, or rises (from the first step on when
     // the start was given as coefficients, since there is then a previous step to go back to).
@@ -163,8 +158,8 @@ export function irls(input: IrlsInput): IrlsResult {
       const half = new Float64Array(p);
       for (let j = 0; j < p; j++) half[j] = (betaNew[j] + beta[j]) / 2;
       betaNew = half;
-      matVec(x, n, p, betaNew, offset, etaNew);
-      for (let i = 0; i < n; i++) mu[i] = link.linkinv(etaNew[i]);
+      matVec(x, n, p, betaNew, offset, etaNew, structure);
+      link.linkinvAll(etaNew, mu);
       dev = totalDeviance(family, y, mu, pw);
     }
     if (!Number.isFinite(dev)) {
@@ -190,5 +185,5 @@ export function irls(input: IrlsInput): IrlsResult {
       : `${iterations} iterations of reweighted least squares${totalHalvings ? ` with ${totalHalvings} step-halving${totalHalvings > 1 ? 's' : ''}` : ''} did not bring the relative change in deviance below ${tol}`;
     warnings.push({ code: 'not-converged', message: `The ${family.name} fit did not converge: ${what}. Estimates are from the last step; simplify the model or check for sparse factor levels.` });
   }
-  return { beta: beta!, eta, mu: Float64Array.from(mu), weights: Float64Array.from(w), xtwxInverse: inverse, deviance: dev, iterations, halvings: totalHalvings, converged, warnings };
+  return { beta: beta!, eta, mu, weights: w, xtwxInverse: inverse, deviance: dev, iterations, halvings: totalHalvings, converged, warnings };
 }

@@ -12,7 +12,19 @@ export const poissonFamily: Family = {
   name: 'poisson',
   link: logLink,
   variance: (mu) => mu,
+  // Log link: mu'(eta) = mu.
+  workingWeights: (_eta, mu, pw, out) => {
+    for (let i = 0; i < mu.length; i++) {
+      const d = mu[i];
+      out[i] = ((pw ? pw[i] : 1) * d * d) / d;
+    }
+  },
   unitDeviance,
+  deviance: (y, mu, w) => {
+    let s = 0;
+    for (let i = 0; i < y.length; i++) s += w ? w[i] * unitDeviance(y[i], mu[i]) : unitDeviance(y[i], mu[i]);
+    return s;
+  },
   devianceResidual: (y, mu) => signedRoot(y, mu, unitDeviance(y, mu)),
   logLik: (y, mu) => (y > 0 ? y * Math.log(mu) : 0) - mu - logFactorial(y),
   start: (y) => y + 0.1,

@@ -11,8 +11,16 @@ export interface Family {
   readonly link: Link;
   /** Variance function V(mu); for quasi families up to the dispersion factor. */
   variance(mu: number): number;
+  /**
+   * The IRLS working weights out_i = pw_i mu'(eta_i)^2 / V(mu_i) at means
+   * mu = g^{-1}(eta) (pw null: unit prior weights), in one loop with no call
+   * per observation. With the log link mu'(eta) = mu.
+   */
+  workingWeights(eta: Float64Array, mu: Float64Array, pw: Float64Array | null, out: Float64Array): void;
   /** Unit deviance d(y, mu) >= 0 (the squared deviance residual). */
   unitDeviance(y: number, mu: number): number;
+  /** sum_i w_i d(y_i, mu_i) (w null: unit weights), in one loop with no call per observation. */
+  deviance(y: Float64Array, mu: Float64Array, w: Float64Array | null): number;
   /** Signed deviance residual sign(y - mu) * sqrt(d(y, mu)). */
   devianceResidual(y: number, mu: number): number;
   /** Full log-likelihood of one observation, constants included; null when there is no likelihood (quasi). */

@@ -11,9 +11,7 @@ export function logLikelihood(family: Family, y: Float64Array, mu: Float64Array,
 }
 
 export function totalDeviance(family: Family, y: Float64Array, mu: Float64Array, w: Float64Array | null = null): number {
-  let s = 0;
-  for (let i = 0; i < y.length; i++) s += (w ? w[i] : 1) * family.unitDeviance(y[i], mu[i]);
-  return s;
+  return family.deviance(y, mu, w);
 }
 
 /** Sum of squared Pearson residuals (y - mu)^2 / V(mu). */

@@ -7,4 +7,6 @@ export interface Link {
   linkinv(eta: number): number;
   /** d mu / d eta at eta. */
   muEta(eta: number): number;
+  /** out_i = g^{-1}(eta_i) for every i, in one loop (no call per element). */
+  linkinvAll(eta: Float64Array, out: Float64Array): void;
 }
