@@ -65,8 +65,11 @@ export function modelFrame(table: DataTable, opts: FrameOptions): ModelFrame {
   const blank = new Uint8Array(candidates.length);
   for (const c of used) {
     const texts = c.texts;
+    const values = c.values;
     for (let k = 0; k < candidates.length; k++) {
-      if (texts[candidates[k]] === '') {
+      // A blank cell parses to NaN (see TableColumn), so only NaN cells need their text read.
+      const r = candidates[k];
+      if (Number.isNaN(values[r]) && texts[r] === '') {
         blank[k] = 1;
         blankIn.add(c.name);
       }

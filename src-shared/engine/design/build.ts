@@ -77,8 +77,7 @@ export function rowList(rows: readonly number[], max = 10): string {
   return rows.length > max ? `${shown.join(', ')} and ${rows.length - max} more` : shown.join(', ');
 }
 
-function numericValues(col: TableColumn, rows: readonly number[]): Float64Array {
-  const out = new Float64Array(rows.length);
+function numericValues(col: TableColumn, rows: readonly number[], out: Float64Array = new Float64Array(rows.length)): Float64Array {
   const bad: number[] = [];
   const blank: number[] = [];
   for (let i = 0; i < rows.length; i++) {
@@ -135,19 +134,26 @@ interface Block {
   cols: Float64Array[];
 }
 
-function partBlock(table: DataTable, part: PartCoding, rows: readonly number[]): Block {
+/** Hands out the storage of the next design column (zero-filled, n long). */
+type ColumnStore = () => Float64Array;
+
+const freshColumns = (n: number): ColumnStore => () => new Float64Array(n);
+
+function partBlock(table: DataTable, part: PartCoding, rows: readonly number[], store: ColumnStore = freshColumns(rows.length)): Block {
   const col = requireColumn(table, part.column);
-  if (part.kind === 'numeric') return { names: [part.column], cols: [numericValues(col, rows)] };
+  if (part.kind === 'numeric') return { names: [part.column], cols: [numericValues(col, rows, store())] };
   const index = new Map<string, number>();
   const nonRef = part.levels.filter((l) => l !== part.reference);
   nonRef.forEach((l, k) => index.set(l, k));
-  const cols = nonRef.map(() => new Float64Array(rows.length));
+  // The reference maps to -1: one lookup per row tells the three cases apart.
+  index.set(part.reference, -1);
+  const cols = nonRef.map(() => store());
   const unknown: number[] = [];
+  const texts = col.texts;
   for (let i = 0; i < rows.length; i++) {
-    const t = col.texts[rows[i]];
-    const k = index.get(t);
-    if (k !== undefined) cols[k][i] = 1;
-    else if (t !== part.reference) unknown.push(rows[i]);
+    const k = index.get(texts[rows[i]]);
+    if (k === undefined) unknown.push(rows[i]);
+    else if (k >= 0) cols[k][i] = 1;
   }
   if (unknown.length) {
     throw new FitInputError(
@@ -192,11 +198,26 @@ function codeTerm(table: DataTable, terms: readonly Term[], term: Term, rows: re
   }
 }
 
-function termBlock(table: DataTable, coding: TermCoding, rows: readonly number[]): Block {
+/** Number of design columns a coded term makes. */
+function termWidth(coding: TermCoding): number {
+  switch (coding.kind) {
+    case 'numeric':
+      return 1;
+    case 'factor':
+      // As partBlock: one dummy per level other than the reference.
+      return coding.levels.filter((l) => l !== coding.reference).length;
+    case 'interaction':
+      return termWidth(coding.parts[0]) * termWidth(coding.parts[1]);
+    case 'spline':
+      return coding.df;
+  }
+}
+
+function termBlock(table: DataTable, coding: TermCoding, rows: readonly number[], store: ColumnStore): Block {
   switch (coding.kind) {
     case 'numeric':
     case 'factor':
-      return partBlock(table, coding, rows);
+      return partBlock(table, coding, rows, store);
     case 'interaction': {
       const a = partBlock(table, coding.parts[0], rows);
       const b = partBlock(table, coding.parts[1], rows);
@@ -205,7 +226,7 @@ function termBlock(table: DataTable, coding: TermCoding, rows: readonly number[]
       // The first part varies fastest (the customary column order, so reference fits line up).
       for (let k = 0; k < b.cols.length; k++) {
         for (let j = 0; j < a.cols.length; j++) {
-          const c = new Float64Array(rows.length);
+          const c = store();
           const ca = a.cols[j];
           const cb = b.cols[k];
           for (let i = 0; i < rows.length; i++) c[i] = ca[i] * cb[i];
@@ -223,7 +244,9 @@ function termBlock(table: DataTable, coding: TermCoding, rows: readonly number[]
       const cols: Float64Array[] = [];
       for (let j = 0; j < coding.df; j++) {
         names.push(`${coding.column}[ns${j + 1}]`);
-        cols.push(basis.slice(j * n, (j + 1) * n));
+        const c = store();
+        c.set(basis.subarray(j * n, (j + 1) * n));
+        cols.push(c);
       }
       return { names, cols };
     }
@@ -240,32 +263,32 @@ export function buildDesign(table: DataTable, terms: readonly Term[], opts: Buil
   const warnings: Warning[] = [];
   const names: string[] = [];
   const termOf: number[] = [];
-  const cols: Float64Array[] = [];
+  const levels = terms.map((term, ti) => opts.coding?.[ti] ?? codeTerm(table, terms, term, rows));
+  // Every column is written in place into the design (no copies of the columns).
+  const p = (opts.intercept ? 1 : 0) + levels.reduce((s, c) => s + termWidth(c), 0);
+  const data = new Float64Array(n * p);
+  let next = 0;
+  const store: ColumnStore = () => data.subarray(n * next, n * ++next);
   if (opts.intercept) {
     names.push('intercept');
     termOf.push(-1);
-    cols.push(new Float64Array(n).fill(1));
+    store().fill(1);
   }
-  const levels: TermCoding[] = [];
   terms.forEach((term, ti) => {
-    const coding = opts.coding?.[ti] ?? codeTerm(table, terms, term, rows);
-    levels.push(coding);
-    const block = termBlock(table, coding, rows);
+    const coding = levels[ti];
+    const block = termBlock(table, coding, rows, store);
     if (block.cols.length === 0) {
       warnings.push({
         code: 'other',
         message: `Factor "${termLabel(term)}" has a single level in the rows used, so it adds nothing to the model and was left out.`,
       });
     }
-    block.names.forEach((nm, k) => {
+    block.names.forEach((nm) => {
       names.push(nm);
       termOf.push(ti);
-      cols.push(block.cols[k]);
     });
   });
-  const p = cols.length;
-  const data = new Float64Array(n * p);
-  cols.forEach((c, j) => data.set(c, j * n));
+  if (next !== p) throw new Error(`buildDesign: ${next} columns written for ${p} counted`);
   const aliased: string[] = [];
   if ((opts.dropAliased ?? !opts.coding) && p > 0 && n > 0) {
     const drop = findAliased(data, n, p);

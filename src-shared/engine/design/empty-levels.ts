@@ -33,20 +33,26 @@ export function moveEmptyReferences(
     const cols = d.termOf.map((tt, j) => (tt === ti ? j : -1)).filter((j) => j >= 0);
     if (cols.length === 0) return t;
     const totals = new Float64Array(cols.length);
-    let refTotal = 0;
-    let refRows = 0;
-    for (let i = 0; i < d.n; i++) {
-      let isRef = true;
-      for (let q = 0; q < cols.length; q++) {
-        if (d.data[cols[q] * d.n + i] !== 0) {
-          totals[q] += y[i];
-          isRef = false;
+    const { data, n } = d;
+    // Rows at the reference level: none of the term's dummies is non-zero.
+    const other = new Uint8Array(n);
+    for (let q = 0; q < cols.length; q++) {
+      const o = cols[q] * n;
+      let s = 0;
+      for (let i = 0; i < n; i++) {
+        if (data[o + i] !== 0) {
+          s += y[i];
+          other[i] = 1;
         }
       }
-      if (isRef) {
-        refTotal += y[i];
-        refRows++;
-      }
+      totals[q] = s;
+    }
+    let refTotal = 0;
+    let refRows = 0;
+    for (let i = 0; i < n; i++) {
+      if (other[i]) continue;
+      refTotal += y[i];
+      refRows++;
     }
     if (refRows === 0 || refTotal > 0) return t;
     const q = cols.findIndex((_, k) => totals[k] > 0);
@@ -87,10 +93,11 @@ export function emptyIndicatorColumns(d: Design, y: Float64Array, coding: readon
   for (let j = 0; j < d.p; j++) {
     if (!isIndicatorColumn(d, j, coding, siteTerm)) continue;
     const off = j * d.n;
+    const { data, n } = d;
     let total = 0;
     let count = 0;
-    for (let i = 0; i < d.n; i++) {
-      if (d.data[off + i] !== 0) {
+    for (let i = 0; i < n; i++) {
+      if (data[off + i] !== 0) {
         total += y[i];
         count++;
       }
