@@ -23,6 +23,7 @@ export function createProjectDocument(programmeName: string, now: Date = new Dat
     fieldCodeRules: [],
     cleaning: emptyLog(),
     aggregation: null,
+    sites: null,
     models: [],
     fitCache: [],
     report: { outputFolder: null, species: [] },

@@ -2,6 +2,7 @@ import { ZodError } from 'zod';
 import { ProjectDocumentError } from './document';
 import { CURRENT_FORMAT_VERSION } from './schema';
 import { v0ToV1 } from './migrations/v0-to-v1';
+import { v1ToV2 } from './migrations/v1-to-v2';
 
 /**
  * Migrations: an ordered list, each turning a document of version k into
@@ -21,7 +22,7 @@ export interface Migration {
   upgrade(doc: unknown): unknown;
 }
 
-export const migrations: readonly Migration[] = [v0ToV1];
+export const migrations: readonly Migration[] = [v0ToV1, v1ToV2];
 
 /** The version a document body says it has: `formatVersion`, or `version` in the first shape. */
 export function versionOf(body: unknown): number | undefined {

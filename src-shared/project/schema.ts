@@ -3,6 +3,7 @@ import { modelSpecSchema } from '../model/spec';
 import { editLogSchema } from '../cleaning/edit-entry';
 import { fieldCodeRuleSchema } from '../import/field-codes';
 import { importedSourceSchema } from './imported-source';
+import { siteSheetLinkSchema } from './site-sheet-link';
 
 /**
  * The project document: everything a project file holds. Results are not
@@ -12,7 +13,7 @@ import { importedSourceSchema } from './imported-source';
  * `formatVersion` is an integer raised by one for every change of shape;
  * migrations.ts turns each older version into the next.
  */
-export const CURRENT_FORMAT_VERSION = 1;
+export const CURRENT_FORMAT_VERSION = 2;
 
 const isoTime = z.iso.datetime({ offset: true });
 
@@ -28,13 +29,19 @@ export const aggregationRuleSchema = z.object({
   minVisits: z.number().int().min(1).default(1),
 });
 
+/** A model the analyst fitted to one species: its spec and whether the report uses it. */
 export const projectModelSchema = z.object({
   id: z.string().min(1),
   name: z.string().min(1),
-  /** The model the report uses. */
-  chosen: z.boolean(),
+  /** The value of the analysis table's species column the model was fitted to ('' when not known, after converting a version-1 file). */
+  species: z.string(),
   spec: modelSpecSchema,
+  /** The model the report uses for its species (at most one per species). */
+  chosen: z.boolean(),
+  /** Rows whose effort or area offset cannot be logged (blank, zero) were left out of the fit. */
+  dropBadOffsetRows: z.boolean().default(false),
 });
+export type ProjectModel = z.infer<typeof projectModelSchema>;
 
 /** A fitted result known to match its inputs: the key is a hash of the data and spec it was fitted to. */
 export const fitCacheEntrySchema = z.object({
@@ -53,6 +60,27 @@ function uniqueIds(xs: readonly { id: string }[]): boolean {
   return new Set(xs.map((x) => x.id)).size === xs.length;
 }
 
+/** The species with more than one model chosen for the report. */
+export function speciesChosenTwice(models: readonly { species: string; chosen: boolean }[]): string[] {
+  const seen = new Set<string>();
+  const twice = new Set<string>();
+  for (const m of models) {
+    if (!m.chosen) continue;
+    if (seen.has(m.species)) twice.add(m.species);
+    seen.add(m.species);
+  }
+  return [...twice];
+}
+
+const projectModelsSchema = z
+  .array(projectModelSchema)
+  .refine(uniqueIds, 'two models have the same id')
+  .superRefine((models, ctx) => {
+    for (const sp of speciesChosenTwice(models)) {
+      ctx.addIssue({ code: 'custom', message: `more than one model of "${sp || '(species not said)'}" is chosen for the report; keep "chosen": true on one of them` });
+    }
+  });
+
 export const projectDocumentSchema = z.object({
   formatVersion: z.literal(CURRENT_FORMAT_VERSION),
   programme: z.object({ name: z.string().min(1, 'the programme needs a name') }),
@@ -65,7 +93,9 @@ export const projectDocumentSchema = z.object({
   fieldCodeRules: z.array(fieldCodeRuleSchema),
   cleaning: editLogSchema,
   aggregation: aggregationRuleSchema.nullable(),
-  models: z.array(projectModelSchema).refine(uniqueIds, 'two models have the same id'),
+  /** Where the sites' area and other attributes come from: a sheet of an imported source, or null. */
+  sites: siteSheetLinkSchema.nullable(),
+  models: projectModelsSchema,
   fitCache: z.array(fitCacheEntrySchema),
   report: reportSettingsSchema,
   /** Random seeds by purpose (bootstrap, simulation ...), so reruns give the same numbers. */

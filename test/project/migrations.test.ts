@@ -70,6 +70,71 @@ describe('migration v0 -> current', () => {
   });
 });
 
+// Fixture: test/project/fixtures/project-v1.json, hand-written in the
+// version-1 shape. Expected values are worked by hand from the step's
+// definition in src-shared/project/migrations/v1-to-v2.ts.
+const v1 = JSON.parse(readFileSync(join(__dirname, 'fixtures/project-v1.json'), 'utf8'));
+
+describe('migration v1 -> v2', () => {
+  const { doc, fromVersion, steps } = migrateToCurrent(v1);
+  const project = parseProjectDocument(doc);
+
+  it('runs one step and gives a valid current document with the other members unchanged', () => {
+    expect(fromVersion).toBe(1);
+    expect(steps).toEqual(['1 -> 2: models per species with the offset-row choice, a link to a site-attributes sheet']);
+    expect(project.formatVersion).toBe(2);
+    expect(project.sites).toBeNull();
+    expect(project.sources).toEqual(v1.sources);
+    expect(project.report).toEqual(v1.report);
+    expect(project.seeds).toEqual({ bootstrap: 5 });
+  });
+
+  it('gives each model one copy per report species, fresh ids not clashing with old ones, one chosen per species', () => {
+    expect(project.models.map((m) => [m.id, m.species, m.name, m.chosen, m.dropBadOffsetRows])).toEqual([
+      ['m1', 'Knot', 'Poisson', true, false],
+      ['m1-2x', 'Dunlin', 'Poisson', true, false],
+      ['m2', 'Knot', 'Negative binomial', false, false],
+      ['m2-2', 'Dunlin', 'Negative binomial', false, false],
+      ['m1-2', 'Knot', 'Hurdle', false, false],
+      ['m1-2-2', 'Dunlin', 'Hurdle', false, false],
+    ]);
+    expect(project.models[2].spec).toMatchObject({ response: 'count', distribution: 'negbin', robust: 'none' });
+  });
+
+  it('drops the fit cache, whose ids were the old ones', () => {
+    expect(project.fitCache).toEqual([]);
+  });
+
+  it('a version-1 model with no report species keeps its id with species not said', () => {
+    const { doc: d } = migrateToCurrent({ ...v1, report: { outputFolder: null, species: [] } });
+    expect(parseProjectDocument(d).models.map((m) => [m.id, m.species, m.chosen])).toEqual([
+      ['m1', '', true],
+      ['m2', '', false],
+      ['m1-2', '', false],
+    ]);
+  });
+
+  it('reports a malformed version-1 model by its path', () => {
+    expect(() => migrateToCurrent({ ...v1, models: [{ id: 'm1', chosen: 'yes' }] })).toThrow(/format version 1 .*models\.0\./);
+  });
+});
+
+describe('format version 2 checks', () => {
+  const base = parseProjectDocument(migrateToCurrent(v1).doc);
+
+  it('refuses two chosen models of one species, naming the species', () => {
+    const models = base.models.map((m) => (m.id === 'm2' ? { ...m, chosen: true } : m));
+    expect(() => parseProjectDocument({ ...base, models })).toThrow(/models: more than one model of "Knot" is chosen/);
+  });
+
+  it('checks the site-sheet link: area unit and site column', () => {
+    const sites = { sourceId: 's1', sheet: 'Roosts', siteColumn: 'roost', area: { column: 'size', unit: 'acre' }, covariates: [] };
+    expect(() => parseProjectDocument({ ...base, sites })).toThrow(/sites\.area\.unit/);
+    const good = parseProjectDocument({ ...base, sites: { ...sites, area: null } });
+    expect(good.sites).toEqual({ sourceId: 's1', sheet: 'Roosts', headerRow: 1, siteColumn: 'roost', area: null, covariates: [] });
+  });
+});
+
 describe('migration runner', () => {
   const tag = (n: number): Migration => ({ from: n, to: n + 1, summary: `step ${n}`, upgrade: (d) => ({ ...(d as object), formatVersion: n + 1, trail: [...((d as { trail?: number[] }).trail ?? []), n] }) });
 

@@ -160,7 +160,7 @@ describe('loadProject refuses bad files and changes nothing on disk', () => {
     const bytes = Buffer.from(encodeContainer({ formatVersion: 99 }, 99));
     bytes[bytes.length - 5] ^= 0xff;
     writeFileSync(file, bytes);
-    await expectRefused(file, 'newer-version', /saved by a newer Tallywise \(project format 99; this version reads up to 1\)\. Update Tallywise/);
+    await expectRefused(file, 'newer-version', /saved by a newer Tallywise \(project format 99; this version reads up to 2\)\. Update Tallywise/);
   });
 
   it('a missing file or a folder: unreadable', async () => {
@@ -178,7 +178,7 @@ describe('older files', () => {
     writeFileSync(file, oldBytes);
     const loaded = await loadProject(file);
     expect(loaded.fileFormatVersion).toBe(0);
-    expect(loaded.migrationSteps).toHaveLength(1);
+    expect(loaded.migrationSteps).toHaveLength(CURRENT_FORMAT_VERSION);
     expect(loaded.document.programme.name).toBe('Hillside pasture transects');
     expect(Buffer.compare(readFileSync(file), Buffer.from(oldBytes))).toBe(0);
     expect(Object.keys(snapshot(folder.dir))).toEqual(['wetland.tallywise']);

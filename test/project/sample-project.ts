@@ -52,11 +52,14 @@ export function sampleProject(options: { cells?: number; seed?: number; name?: s
     ],
     cleaning: log,
     aggregation: { groupBy: ['site', 'season'], count: 'sum', effort: 'sum', minVisits: 2 },
+    sites: { sourceId: 's1', sheet: 'Old', headerRow: 1, siteColumn: 'Site', area: { column: 'Area (ha)', unit: 'ha' }, covariates: ['Habitat'] },
     models: [
       {
         id: 'm1',
         name: 'Negative binomial with effort',
+        species: 'Teal',
         chosen: true,
+        dropBadOffsetRows: true,
         spec: {
           response: 'count',
           distribution: 'negbin',
@@ -68,7 +71,7 @@ export function sampleProject(options: { cells?: number; seed?: number; name?: s
           robust: 'none',
         },
       },
-      { id: 'm2', name: 'Poisson', chosen: false, spec: { response: 'count', distribution: 'poisson', predictors: [], offsets: [], zeroPredictors: [], robust: 'site' } },
+      { id: 'm2', name: 'Poisson', species: 'Teal', chosen: false, dropBadOffsetRows: false, spec: { response: 'count', distribution: 'poisson', predictors: [], offsets: [], zeroPredictors: [], robust: 'site' } },
     ],
     fitCache: [{ modelId: 'm1', key: 'f'.repeat(16), computedAt: '2026-01-20T09:00:00.000Z' }],
     report: { outputFolder: '/home/analyst/reports/2025', species: ['Teal', 'Coot'] },
