@@ -29,6 +29,8 @@ export interface SourceMapping {
   mappedBy: RolePlan['mappedBy'];
   dateOrder: DateOrder;
   source: SourceInfo;
+  /** The sheets the records were read from; other stored sheets (a site list) are kept, not read as records. Absent: every stored sheet. */
+  recordSheets?: string[];
 }
 
 export interface ImportedSourceData {
@@ -77,10 +79,15 @@ function loadedFrom(table: ImportedTable, plan: RolePlan, dateOrder: DateOrder, 
   };
 }
 
-export async function readWorkbook(path: string, opts: { sheet?: string; dateOrder?: DateOrder; roles?: ColumnRoles } = {}): Promise<WorkbookReading> {
+/**
+ * `keepSheets` names further sheets whose cells the project keeps beside the
+ * records' sheet (a list of sites with their areas), not read as records.
+ */
+export async function readWorkbook(path: string, opts: { sheet?: string; dateOrder?: DateOrder; roles?: ColumnRoles; keepSheets?: readonly string[] } = {}): Promise<WorkbookReading> {
   const fileName = basename(path);
   const bytes = await readBytes(path);
   const { grids, source } = await readGrids(path, { sheet: opts.sheet });
+  const kept = opts.keepSheets?.length ? (await readGrids(path, { sheets: opts.keepSheets })).grids.filter((g) => !grids.some((r) => r.sheet === g.sheet)) : [];
   const named: ReadGrid[] = grids.map((g) => ({ ...g, file: fileName }));
   const first = tableFromGrids(named, source, { dateOrder: opts.dateOrder ?? 'dmy' });
   const headers = first.columns.map((c) => c.name);
@@ -102,8 +109,8 @@ export async function readWorkbook(path: string, opts: { sheet?: string; dateOrd
   return {
     data: {
       loaded: loadedFrom(table, plan, order, meta),
-      stored: { ...meta, sheets: grids.map(storeGrid) },
-      mapping: { sourceId: meta.id, roles: plan.roles, mappedBy: plan.mappedBy, dateOrder: order, source },
+      stored: { ...meta, sheets: [...grids, ...kept].map(storeGrid) },
+      mapping: { sourceId: meta.id, roles: plan.roles, mappedBy: plan.mappedBy, dateOrder: order, source, ...(kept.length ? { recordSheets: grids.map((g) => g.sheet) } : {}) },
     },
     questions: [],
     headers,
@@ -116,7 +123,8 @@ export function rebuildSource(stored: ImportedSource, mapping: SourceMapping | u
   if (!mapping) {
     throw new ImportError('bad-template', `The project keeps the cells of ${stored.fileName} but not how its columns were mapped; import the workbook again.`, { file: stored.fileName });
   }
-  const grids = stored.sheets.map((g) => readStoredGrid(g, stored.fileName));
+  const sheets = mapping.recordSheets ? stored.sheets.filter((g) => mapping.recordSheets!.includes(g.name)) : stored.sheets;
+  const grids = sheets.map((g) => readStoredGrid(g, stored.fileName));
   const table = tableFromGrids(grids, mapping.source, { dateOrder: mapping.dateOrder });
   const { sheets: _cells, ...meta } = stored;
   void _cells;
