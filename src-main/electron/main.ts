@@ -3,7 +3,7 @@ import { createHostServices } from '../services/host-services';
 import { commandChannel, type HostCommand } from '@shared/host/channels';
 import { registerHostHandlers } from './ipc';
 import { installMenu } from './menu';
-import { createMainWindow, revealInFileManager } from './window';
+import { createMainWindow, openWithSystem, revealInFileManager } from './window';
 
 // The Electron shell: windows, dialogs, menu and IPC wiring only. Everything
 // it calls is a plain service that the tests run in Node.
@@ -30,8 +30,12 @@ void app.whenReady().then(() => {
         const r = await dialog.showSaveDialog({ title, defaultPath: defaultName, filters: filters(extensions) });
         return r.canceled ? null : (r.filePath ?? null);
       },
+      async chooseFolder(title) {
+        const r = await dialog.showOpenDialog({ title, properties: ['openDirectory', 'createDirectory'] });
+        return r.canceled ? null : (r.filePaths[0] ?? null);
+      },
     },
-    shell: { reveal: revealInFileManager },
+    shell: { reveal: revealInFileManager, open: openWithSystem },
   });
   registerHostHandlers(services);
   win = createMainWindow();

@@ -1,5 +1,5 @@
 import { join } from 'node:path';
-import { app, BrowserWindow, shell } from 'electron';
+import { app, BrowserWindow, dialog, shell } from 'electron';
 
 /**
  * The one application window, locked down: the page runs sandboxed with
@@ -31,6 +31,19 @@ export function createMainWindow(): BrowserWindow {
   win.webContents.on('will-navigate', (event) => event.preventDefault());
   win.webContents.on('will-redirect', (event) => event.preventDefault());
   win.webContents.setWindowOpenHandler(() => ({ action: 'deny' }));
+  // The page holds back closing while its project has unsaved changes: ask, and close only when told to.
+  win.webContents.on('will-prevent-unload', (event) => {
+    const choice = dialog.showMessageBoxSync(win, {
+      type: 'question',
+      buttons: ['Close without saving', 'Keep working'],
+      defaultId: 1,
+      cancelId: 1,
+      title: 'Unsaved changes',
+      message: 'The project has changes that are not saved.',
+      detail: 'Close Tallywise and drop them? Keep working and save the project first to keep them.',
+    });
+    if (choice === 0) event.preventDefault();
+  });
   win.webContents.session.setPermissionRequestHandler((_wc, _permission, callback) => callback(false));
 
   const devUrl = process.env['ELECTRON_RENDERER_URL'];
@@ -43,4 +56,9 @@ export function createMainWindow(): BrowserWindow {
 export async function revealInFileManager(path: string): Promise<boolean> {
   shell.showItemInFolder(path);
   return true;
+}
+
+/** Opens a file with the program the system uses for its kind. */
+export async function openWithSystem(path: string): Promise<boolean> {
+  return (await shell.openPath(path)) === '';
 }

@@ -4,6 +4,8 @@ import { demoOverview } from './demo-overview';
 import { listSheets } from '../import/import-file';
 import { readWorkbook } from './record-import';
 import { ProjectSession } from './project-session';
+import { writeReportFiles } from '../report/write-report';
+import { fileFingerprint } from '../report/project-report';
 
 /** All host calls, as plain async functions over the environment's ports. */
 export function createHostServices(env: HostEnvironment): HostServices {
@@ -15,14 +17,17 @@ export function createHostServices(env: HostEnvironment): HostServices {
     'dialog:choose-save': async ({ title, defaultName, extensions }) => ({
       path: await env.dialogs.chooseSave(title, defaultName, extensions),
     }),
+    'dialog:choose-folder': async ({ title }) => ({ path: env.dialogs.chooseFolder ? await env.dialogs.chooseFolder(title) : null }),
     'file:reveal': async ({ path }) => ({ ok: await env.shell.reveal(path) }),
+    'file:open': async ({ path }) => ({ ok: env.shell.open ? await env.shell.open(path) : await env.shell.reveal(path) }),
+    'file:fingerprint': async ({ path }) => fileFingerprint(path),
     'import:list-sheets': async ({ path }) => ({ sheets: await listSheets(path) }),
     'import:read-workbook': async ({ path, sheet, dateOrder, roles }) => {
       const reading = await readWorkbook(path, { sheet, dateOrder, roles });
       if (reading.data) session.keep(reading.data);
       return { source: reading.data?.loaded ?? null, questions: reading.questions.map(({ options: _o, examples, ...q }) => (void _o, { ...q, examples: [...examples] })), headers: reading.headers, rolesNeeded: reading.rolesNeeded };
     },
-    'project:new-from-demo': async () => session.newFromDemo(),
+    'project:new-from-demo': async ({ recorded }) => session.newFromDemo(recorded),
     'project:open': async ({ path, fromRecovery }) => session.open(path, fromRecovery),
     'project:save': async ({ path, document }) => session.save(path, document),
     'project:autosave': async ({ path, document }) => {
@@ -34,5 +39,7 @@ export function createHostServices(env: HostEnvironment): HostServices {
       await session.discardRecovery(path);
       return { ok: true };
     },
+    'project:sheet-cells': async ({ sourceId, sheet }) => ({ grid: session.sheetCells(sourceId, sheet) }),
+    'report:write': async ({ document, folder, stem }) => ({ ...(await writeReportFiles(document, folder, stem)) }),
   };
 }

@@ -7,10 +7,14 @@
 export interface DialogPort {
   chooseOpen(title: string, extensions: string[]): Promise<string | null>;
   chooseSave(title: string, defaultName: string, extensions: string[]): Promise<string | null>;
+  /** A folder to write into (absent where the host cannot ask). */
+  chooseFolder?(title: string): Promise<string | null>;
 }
 
 export interface ShellPort {
   reveal(path: string): Promise<boolean>;
+  /** Opens a file with the system's program for it (absent where the host has none). */
+  open?(path: string): Promise<boolean>;
 }
 
 export interface HostEnvironment {

@@ -1,14 +1,16 @@
 import { mkdir } from 'node:fs/promises';
 import { dirname, join } from 'node:path';
-import { createProjectDocument, type ProjectDocument } from '@shared/project/document';
+import type { ProjectDocument } from '@shared/project/document';
 import type { ImportedSource } from '@shared/project/imported-source';
+import type { SheetGrid } from '@shared/project/sheet-grid';
 import type { LoadedSource, OpenedProject, RecoveryOffer, WireDocument } from '@shared/host/contract';
 import { PROGRAMME_NAME } from '@shared/demo/programme';
-import { writeDemoWorkbooks } from '../demo/write-workbooks';
+import { demoProjectWithImports } from '../demo/demo-project';
 import { loadProject, saveProject } from '../project/project-store';
 import { checkRecovery, createAutosaver, discardRecovery, type Autosaver } from '../project/autosave';
 import { projectDisplayName, recoveryPathFor, untitledRecoveryPath, PROJECT_EXTENSION } from '../project/project-paths';
-import { readWorkbook, rebuildSource, type ImportedSourceData, type SourceMapping } from './record-import';
+import { rebuildSource, type ImportedSourceData, type SourceMapping } from './record-import';
+import { mappingsMember, storedMappings } from '../project/stored-mappings';
 
 /**
  * The project as the main process holds it between calls: the cells and the
@@ -25,16 +27,6 @@ export class ProjectSessionError extends Error {
 interface KeptSource {
   stored: ImportedSource;
   mapping: SourceMapping;
-}
-
-/** What the project's `mapping` field holds: one entry per source. */
-interface StoredMappings {
-  sources: SourceMapping[];
-}
-
-function asStoredMappings(mapping: unknown): Map<string, SourceMapping> {
-  const list = (mapping as StoredMappings | null)?.sources;
-  return new Map(Array.isArray(list) ? list.map((m) => [m.sourceId, m]) : []);
 }
 
 function toWire(doc: ProjectDocument): WireDocument {
@@ -58,12 +50,11 @@ export class ProjectSession {
       if (!k) throw new ProjectSessionError(`The cells of "${ref.fileName}" are no longer held by Tallywise, so the project cannot be written completely. Import the workbook again, then save.`);
       return k.stored;
     });
-    const mappings = JSON.parse(JSON.stringify({ sources: doc.sources.map((ref) => this.kept.get(ref.id)!.mapping) })) as StoredMappings;
-    return { ...doc, sources, mapping: mappings as unknown as ProjectDocument['mapping'] };
+    return { ...doc, sources, mapping: mappingsMember(doc.sources.map((ref) => this.kept.get(ref.id)!.mapping)) };
   }
 
   private opened(doc: ProjectDocument, path: string | null, migrationSteps: string[] = []): OpenedProject {
-    const mappings = asStoredMappings(doc.mapping);
+    const mappings = storedMappings(doc.mapping);
     const sources: LoadedSource[] = doc.sources.map((s) => {
       const mapping = mappings.get(s.id);
       const loaded = rebuildSource(s, mapping);
@@ -73,19 +64,16 @@ export class ProjectSession {
     return { document: toWire(doc), path, name: path ? projectDisplayName(path) : doc.programme.name, sources, migrationSteps };
   }
 
-  async newFromDemo(): Promise<OpenedProject> {
-    const dir = join(this.userDataDir, 'demo-workbooks');
-    const { files } = await writeDemoWorkbooks(dir);
-    const doc = createProjectDocument(PROGRAMME_NAME);
-    const sources: LoadedSource[] = [];
-    for (const file of files) {
-      const reading = await readWorkbook(file);
-      if (!reading.data) throw new ProjectSessionError(`The demo workbook ${file} asks a question on import; this should not happen.`);
-      this.keep(reading.data);
-      sources.push(reading.data.loaded);
-      doc.sources.push(reading.data.stored);
-    }
-    return { document: toWire(doc), path: null, name: PROGRAMME_NAME, sources, migrationSteps: [] };
+  /** The demo programme's workbooks imported afresh; with `recorded`, its recorded cleaning and chosen models too. */
+  async newFromDemo(recorded = false): Promise<OpenedProject> {
+    const { document, imports } = await demoProjectWithImports({ dir: join(this.userDataDir, 'demo-workbooks'), recorded });
+    for (const data of imports) this.keep(data);
+    return { document: toWire(document), path: null, name: PROGRAMME_NAME, sources: imports.map((i) => i.loaded), migrationSteps: [] };
+  }
+
+  /** The stored cells of a sheet of a source the session holds (the linked site list), or null. */
+  sheetCells(sourceId: string, sheet: string): SheetGrid | null {
+    return this.kept.get(sourceId)?.stored.sheets.find((g) => g.name === sheet) ?? null;
   }
 
   private untitledRecovery(): string {

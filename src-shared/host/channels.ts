@@ -9,7 +9,10 @@ export const channelNames = [
   'demo:overview',
   'dialog:choose-open',
   'dialog:choose-save',
+  'dialog:choose-folder',
   'file:reveal',
+  'file:open',
+  'file:fingerprint',
   'import:list-sheets',
   'import:read-workbook',
   'project:new-from-demo',
@@ -18,6 +21,8 @@ export const channelNames = [
   'project:autosave',
   'project:check-recovery',
   'project:discard-recovery',
+  'project:sheet-cells',
+  'report:write',
 ] as const;
 export type ChannelName = (typeof channelNames)[number];
 

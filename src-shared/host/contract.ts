@@ -2,7 +2,9 @@ import { z } from 'zod';
 import { channelNames, type ChannelName, type HostCommand } from './channels';
 import { projectDocumentSchema } from '../project/schema';
 import { importedSourceSchema } from '../project/imported-source';
+import { sheetGridSchema } from '../project/sheet-grid';
 import { effortUnits } from '../import/units';
+import type { ReportDocument } from '../report/model';
 
 export { bridgeGlobal, commandChannel, hostCommands, type HostCommand } from './channels';
 
@@ -175,6 +177,16 @@ export type RecoveryOffer = z.infer<typeof recoveryOfferSchema>;
 
 const projectPathOrNone = z.object({ path: filePath.nullable() }).strict();
 
+/** A report document as it crosses the bridge: its outline is checked here, its content by the renderers. */
+const reportDocumentSchema = z.custom<ReportDocument>(
+  (v) => {
+    const d = v as Partial<Record<keyof ReportDocument, unknown>> | null;
+    return !!d && typeof d.title === 'string' && typeof d.subtitle === 'string' && typeof d.createdAt === 'string' && Array.isArray(d.sections) && Array.isArray(d.sheets) && Array.isArray(d.references) && typeof d.appendix === 'object';
+  },
+  { message: 'a report with a title, sections, an appendix, references and sheets is needed' },
+);
+const reportStem = z.string().regex(/^[^/\\:*?"<>|\u0000-\u001f]{1,120}$/, 'a file name without a folder or any of / \\ : * ? " < > |');
+
 /** Channel name → argument schema and result type. */
 export const hostContract = {
   'app:info': { input: empty, output: appInfoSchema },
@@ -187,7 +199,12 @@ export const hostContract = {
     input: z.object({ title: z.string(), defaultName: z.string(), extensions: z.array(z.string()) }).strict(),
     output: z.object({ path: z.string().nullable() }),
   },
+  'dialog:choose-folder': { input: z.object({ title: z.string() }).strict(), output: z.object({ path: z.string().nullable() }) },
   'file:reveal': { input: z.object({ path: filePath }).strict(), output: z.object({ ok: z.boolean() }) },
+  /** Opens a file with the program the system uses for its kind (the report's PDF). */
+  'file:open': { input: z.object({ path: filePath }).strict(), output: z.object({ ok: z.boolean() }) },
+  /** A file's name (no folder) and the SHA-256 of its bytes, for a report's reproducibility appendix. */
+  'file:fingerprint': { input: z.object({ path: filePath }).strict(), output: z.object({ name: z.string(), sha256: z.string() }) },
   'import:list-sheets': {
     input: z.object({ path: filePath }).strict(),
     output: z.object({ sheets: z.array(z.object({ name: z.string(), hidden: z.boolean() })) }),
@@ -208,7 +225,8 @@ export const hostContract = {
       rolesNeeded: z.string().nullable(),
     }),
   },
-  'project:new-from-demo': { input: empty, output: openedProjectSchema },
+  /** `recorded`: with the demo's recorded cleaning and chosen models (src-main/demo/demo-project.ts). */
+  'project:new-from-demo': { input: z.object({ recorded: z.boolean().optional() }).strict(), output: openedProjectSchema },
   'project:open': { input: z.object({ path: filePath, fromRecovery: z.boolean().optional() }).strict(), output: openedProjectSchema },
   'project:save': {
     input: z.object({ path: filePath, document: wireDocumentSchema }).strict(),
@@ -220,6 +238,13 @@ export const hostContract = {
   },
   'project:check-recovery': { input: projectPathOrNone, output: z.object({ offer: recoveryOfferSchema.nullable() }) },
   'project:discard-recovery': { input: projectPathOrNone, output: z.object({ ok: z.boolean() }) },
+  /** The stored cells of one sheet of a source in the project (the site list the project links), or null when not held. */
+  'project:sheet-cells': { input: z.object({ sourceId: z.string().min(1), sheet: z.string().min(1) }).strict(), output: z.object({ grid: sheetGridSchema.nullable() }) },
+  /** Writes a report document as one PDF, one HTML and one XLSX file named `stem` into `folder`. */
+  'report:write': {
+    input: z.object({ document: reportDocumentSchema, folder: filePath, stem: reportStem }).strict(),
+    output: z.object({ pdf: z.string(), html: z.string(), xlsx: z.string() }),
+  },
 } as const satisfies Record<ChannelName, { input: z.ZodType; output: z.ZodType }>;
 
 // Both ways: every listed channel has a schema (above) and every schema is listed (here).

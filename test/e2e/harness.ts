@@ -34,6 +34,10 @@ export class ScriptedDialogs implements DialogPort {
   async chooseSave(): Promise<string | null> {
     return this.saves.shift() ?? null;
   }
+  readonly folders: (string | null)[] = [];
+  async chooseFolder(): Promise<string | null> {
+    return this.folders.shift() ?? null;
+  }
 }
 
 export interface AppSession {
@@ -63,7 +67,7 @@ export async function closeBrowser(): Promise<void> {
   browser = null;
 }
 
-export async function openApp(opts: { width?: number; height?: number; env?: Partial<HostEnvironment> } = {}): Promise<AppSession> {
+export async function openApp(opts: { width?: number; height?: number; scale?: number; env?: Partial<HostEnvironment> } = {}): Promise<AppSession> {
   const rendererDir = join(root, 'out', 'renderer');
   if (!existsSync(join(rendererDir, 'index.html'))) throw new Error('The renderer is not built: run `npm run build` first.');
   const server = await serveFolder(rendererDir);
@@ -79,7 +83,7 @@ export async function openApp(opts: { width?: number; height?: number; env?: Par
     ...opts.env,
   });
   const b = await sharedBrowser();
-  const context: BrowserContext = await b.newContext({ viewport: { width: opts.width ?? 1366, height: opts.height ?? 768 } });
+  const context: BrowserContext = await b.newContext({ viewport: { width: opts.width ?? 1366, height: opts.height ?? 768 }, deviceScaleFactor: opts.scale ?? 1 });
   const page = await context.newPage();
   const consoleErrors: string[] = [];
   page.on('console', (m) => {
