@@ -1,4 +1,4 @@
-import type { Comparison } from './comparison';
+import type { Comparison } from '@shared/model/comparison';
 import { fmt, fmtP } from './format';
 
 /**

@@ -1,6 +1,11 @@
 import type { ReactNode } from 'react';
 import { distributions, hasZeroPart, type Distribution } from '@shared/model/spec';
-import { distributionNames, type PredictorChoice, type PredictorColumn, type SiteChoice, type SpecDraft, type TableRoles, type TimeChoice } from './spec-draft';
+import type { ModelEquationTex } from '@shared/model/equation-tex';
+import { distributionNames, type PredictorChoice, type PredictorColumn, type SiteChoice, type SpecDraft, type TableRoles } from './spec-draft';
+import { PredictorPicker } from './builder/PredictorPicker';
+import { InteractionPicker } from './builder/InteractionPicker';
+import { SeasonTerm } from './builder/SeasonTerm';
+import { ModelEquation } from './builder/ModelEquation';
 
 /**
  * The model builder: species, distribution, predictors, offsets, site and
@@ -13,7 +18,7 @@ interface Props {
   species: readonly string[];
   columns: readonly PredictorColumn[];
   roles: TableRoles;
-  equation: readonly string[];
+  equation: ModelEquationTex | null;
   problems: readonly string[];
   busy: boolean;
   /** Rows left out for a missing offset (when the analyst asked for it). */
@@ -25,61 +30,17 @@ interface Props {
   onFit: () => void;
 }
 
-function PredictorPicker({ label, columns, chosen, onChange }: { label: string; columns: readonly PredictorColumn[]; chosen: readonly PredictorChoice[]; onChange: (p: PredictorChoice[]) => void }) {
-  if (!columns.length) return <p className="hint">The analysis table has no other columns to use as {label.toLowerCase()}.</p>;
-  const set = (col: PredictorColumn, type: string, reference = '') => {
-    const rest = chosen.filter((p) => p.column !== col.name);
-    if (type === 'numeric' || type === 'factor') {
-      const at = chosen.findIndex((p) => p.column === col.name);
-      const next = [...rest];
-      next.splice(at < 0 ? next.length : at, 0, { column: col.name, type, reference: type === 'factor' ? reference : '' });
-      onChange(next);
-    } else onChange(rest);
-  };
-  return (
-    <table className="plain picker">
-      <caption>{label}</caption>
-      <tbody>
-        {columns.map((col) => {
-          const p = chosen.find((x) => x.column === col.name);
-          return (
-            <tr key={col.name}>
-              <th scope="row">{col.name}</th>
-              <td>
-                <select aria-label={`${label}: ${col.name}`} value={p?.type ?? 'none'} onChange={(e) => set(col, e.target.value)}>
-                  <option value="none">not used</option>
-                  <option value="numeric" disabled={!col.numeric}>
-                    number
-                  </option>
-                  <option value="factor">factor (levels)</option>
-                </select>
-              </td>
-              <td>
-                {p?.type === 'factor' && (
-                  <select aria-label={`Reference level of ${col.name}`} value={p.reference} onChange={(e) => set(col, 'factor', e.target.value)}>
-                    <option value="">against {col.levels[0] ?? '—'} (first)</option>
-                    {col.levels.slice(1).map((l) => (
-                      <option key={l} value={l}>
-                        against {l}
-                      </option>
-                    ))}
-                  </select>
-                )}
-              </td>
-            </tr>
-          );
-        })}
-      </tbody>
-    </table>
-  );
-}
-
 export function SpecBuilder({ draft, onChange, species, columns, roles, equation, problems, busy, leftOut, progress, note, onFit }: Props) {
   const set = <K extends keyof SpecDraft>(k: K, v: SpecDraft[K]) => onChange({ ...draft, [k]: v });
   const chosen = new Set(draft.species);
   const all = species.length > 0 && species.every((s) => chosen.has(s));
   const toggle = (s: string) => set('species', species.filter((x) => (x === s ? !chosen.has(s) : chosen.has(x))));
   const n = draft.species.length;
+  // An interaction keeps both its parts as main effects: dropping a predictor drops its interactions.
+  const setPredictors = (p: PredictorChoice[]) => {
+    const kept = new Set(p.map((x) => x.column));
+    onChange({ ...draft, predictors: p, interactions: draft.interactions.filter((i) => kept.has(i[0]) && kept.has(i[1])) });
+  };
   return (
     <form
       className="builder"
@@ -140,14 +101,7 @@ export function SpecBuilder({ draft, onChange, species, columns, roles, equation
             </label>
           )}
         </div>
-        <label className="field">
-          <span>Season term</span>
-          <select aria-label="Season term" value={draft.time} onChange={(e) => set('time', e.target.value as TimeChoice)}>
-            <option value="annual">one effect per season (annual)</option>
-            <option value="linear">log-linear trend over seasons</option>
-            <option value="none">no season term</option>
-          </select>
-        </label>
+        <SeasonTerm time={draft.time} df={draft.seasonDf} onTime={(t) => set('time', t)} onDf={(df) => set('seasonDf', df)} />
         <div className="offsets" role="group" aria-label="Offsets">
           <span className="field-label">Offsets (log, coefficient 1)</span>
           <label className="check">
@@ -168,34 +122,37 @@ export function SpecBuilder({ draft, onChange, species, columns, roles, equation
 
       <fieldset className="builder-part">
         <legend>Predictors</legend>
-        <PredictorPicker label="Count part" columns={columns} chosen={draft.predictors} onChange={(p) => set('predictors', p)} />
+        <PredictorPicker label="Count part" columns={columns} chosen={draft.predictors} onChange={setPredictors} />
+        <InteractionPicker candidates={draft.predictors.map((p) => p.column)} chosen={draft.interactions} onChange={(i) => set('interactions', i)} />
         {hasZeroPart(draft.distribution) && (
           <PredictorPicker label={draft.distribution.startsWith('hurdle') ? 'Zero part (chance of a non-zero count)' : 'Zero part (chance of an extra zero)'} columns={columns} chosen={draft.zeroPredictors} onChange={(p) => set('zeroPredictors', p)} />
         )}
       </fieldset>
 
+      {/* The model written out stays in view beside the Fit button while the choices above scroll. */}
       <div className="builder-foot">
-      <div className="equation" data-testid="model-equation" aria-label="The model">
-        {equation.map((line) => (
-          <div key={line}>{line}</div>
-        ))}
-      </div>
-      {problems.length > 0 && (
-        <ul className="spec-problems" data-testid="spec-problems" role="alert">
-          {problems.map((p) => (
-            <li key={p}>{p}</li>
-          ))}
-        </ul>
-      )}
-      {note}
-      {progress ?? (
-        <div className="builder-actions">
-          <button type="submit" className="button is-primary" disabled={busy || problems.length > 0} data-testid="fit-button">
-            {n > 1 ? `Fit for ${n} species` : 'Fit the model'}
-          </button>
-          {problems.length > 0 && <span className="hint">Put right what is listed above to fit.</span>}
-        </div>
-      )}
+        <section className="builder-model" aria-labelledby="builder-model-title">
+          <h3 id="builder-model-title" className="builder-model-title">
+            The model
+          </h3>
+          <ModelEquation equation={equation} />
+        </section>
+        {problems.length > 0 && (
+          <ul className="spec-problems" data-testid="spec-problems" role="alert">
+            {problems.map((p) => (
+              <li key={p}>{p}</li>
+            ))}
+          </ul>
+        )}
+        {note}
+        {progress ?? (
+          <div className="builder-actions">
+            <button type="submit" className="button is-primary" disabled={busy || problems.length > 0} data-testid="fit-button">
+              {n > 1 ? `Fit for ${n} species` : 'Fit the model'}
+            </button>
+            {problems.length > 0 && <span className="hint">Put right what is listed above to fit.</span>}
+          </div>
+        )}
       </div>
     </form>
   );

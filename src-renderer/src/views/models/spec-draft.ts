@@ -1,5 +1,7 @@
 import { findColumn, levelsOf, sortLevels, type DataTable } from '@shared/data/table';
-import { hasZeroPart, parseModelSpec, type Distribution, type ModelSpec, type Term } from '@shared/model/spec';
+import type { TableRoles } from '@shared/model/table-roles';
+import { timeIsPredictor } from '@shared/model/season-term';
+import { hasZeroPart, parseModelSpec, SpecError, type Distribution, type ModelSpec, type Term } from '@shared/model/spec';
 
 /**
  * The model builder's form: what the analyst chose, in the words of the
@@ -14,7 +16,10 @@ export interface PredictorChoice {
 }
 
 export type SiteChoice = 'none' | 'fixed' | 'random';
-export type TimeChoice = 'none' | 'annual' | 'linear';
+export type TimeChoice = 'none' | 'annual' | 'linear' | 'smooth';
+
+/** Two chosen predictors whose effects may depend on each other. */
+export type InteractionChoice = readonly [string, string];
 
 export interface SpecDraft {
   readonly species: readonly string[];
@@ -26,9 +31,15 @@ export interface SpecDraft {
   readonly site: SiteChoice;
   readonly quadraturePoints: number;
   readonly time: TimeChoice;
+  /** Degrees of freedom of the smooth season curve (time 'smooth'). */
+  readonly seasonDf: number;
+  /** Two-way interactions in the count part, between chosen predictors. */
+  readonly interactions: readonly InteractionChoice[];
   /** Leave out the rows whose chosen offset is missing or not positive (instead of refusing the fit). */
   readonly dropBadOffsetRows: boolean;
 }
+
+export { tableRoles, type TableRoles } from '@shared/model/table-roles';
 
 export const initialDraft: SpecDraft = {
   species: [],
@@ -40,6 +51,8 @@ export const initialDraft: SpecDraft = {
   site: 'fixed',
   quadraturePoints: 9,
   time: 'annual',
+  seasonDf: 4,
+  interactions: [],
   dropBadOffsetRows: false,
 };
 
@@ -52,30 +65,6 @@ export const distributionNames: Record<Distribution, string> = {
   'hurdle-poisson': 'Hurdle Poisson',
   'hurdle-negbin': 'Hurdle negative binomial',
 };
-
-/** The analysis table's roles: which columns are the response, grouping, time and offsets. */
-export interface TableRoles {
-  readonly response: 'count';
-  readonly site: 'site';
-  readonly season: 'season';
-  readonly species: 'species';
-  /** Effort column (e.g. effort_h) and its unit, when the records have effort. */
-  readonly effort?: { readonly column: string; readonly unit: string };
-  readonly area?: { readonly column: 'area_ha'; readonly unit: 'ha' };
-}
-
-const unitOfEffortColumn: Record<string, string> = { effort_h: 'hours', effort_km: 'km', effort_trap_nights: 'trap-nights', effort_visits: 'visits', effort_points: 'points' };
-
-export function tableRoles(table: DataTable, effortColumn: string | undefined): TableRoles {
-  return {
-    response: 'count',
-    site: 'site',
-    season: 'season',
-    species: 'species',
-    ...(effortColumn ? { effort: { column: effortColumn, unit: unitOfEffortColumn[effortColumn] ?? 'units' } } : {}),
-    ...(findColumn(table, 'area_ha') ? { area: { column: 'area_ha' as const, unit: 'ha' as const } } : {}),
-  };
-}
 
 /** Columns that are bookkeeping or roles, never predictors. */
 const notPredictors = new Set(['count', 'site', 'season', 'species', 'log_effort', 'log_area', 'offset', 'area_ha']);
@@ -107,8 +96,12 @@ function termOf(p: PredictorChoice): Term {
   return p.type === 'numeric' ? { column: p.column, type: 'numeric' } : { column: p.column, type: 'factor', ...(p.reference ? { reference: p.reference } : {}) };
 }
 
-/** The engine's spec for the draft (the same for every species of a batch). */
+const wholeIn = (v: number, lo: number, hi: number) => Number.isInteger(v) && v >= lo && v <= hi;
+
+/** The engine's spec for the draft (the same for every species of a batch); a SpecError in plain words when a number is out of range. */
 export function specOf(draft: SpecDraft, roles: TableRoles): ModelSpec {
+  if (draft.time === 'smooth' && !wholeIn(draft.seasonDf, 1, 20)) throw new SpecError('The season curve needs a whole number of degrees of freedom from 1 to 20 (4 is a usual start).');
+  if (draft.site === 'random' && !wholeIn(draft.quadraturePoints, 1, 50)) throw new SpecError('The number of quadrature points must be a whole number from 1 (the Laplace approximation) to 50.');
   const offsets = [
     ...(draft.effortOffset && roles.effort ? [{ column: roles.effort.column, log: true }] : []),
     ...(draft.areaOffset && roles.area ? [{ column: roles.area.column, log: true }] : []),
@@ -116,21 +109,31 @@ export function specOf(draft: SpecDraft, roles: TableRoles): ModelSpec {
   return parseModelSpec({
     response: roles.response,
     distribution: draft.distribution,
-    predictors: draft.predictors.map(termOf),
+    predictors: [
+      ...draft.predictors.map(termOf),
+      ...draft.interactions.map((columns) => ({ type: 'interaction' as const, columns: [...columns] })),
+      // The smooth season curve as the trend module writes it (src-shared/trend/trend-specs.ts): a spline term plus the time column.
+      ...(draft.time === 'smooth' ? [{ column: roles.season, type: 'spline' as const, df: draft.seasonDf }] : []),
+    ],
     offsets,
     zeroPredictors: hasZeroPart(draft.distribution) ? draft.zeroPredictors.map(termOf) : [],
     ...(draft.site !== 'none' ? { site: { column: roles.site, effect: draft.site, quadraturePoints: draft.quadraturePoints } } : {}),
-    ...(draft.time !== 'none' ? { time: { column: roles.season, trend: draft.time } } : {}),
+    ...(draft.time !== 'none' ? { time: { column: roles.season, trend: draft.time === 'smooth' ? 'linear' : draft.time } } : {}),
   });
 }
 
 /** A short name for a fitted spec: "Negative binomial, site fixed, season annual". */
+function termName(t: Term): string {
+  if (t.type === 'interaction') return t.columns.join(' × ');
+  return t.type === 'spline' ? `smooth ${t.column} (${t.df} df)` : t.column;
+}
+
 export function specLabel(spec: ModelSpec): string {
   const parts = [distributionNames[spec.distribution]];
-  if (spec.predictors.length) parts.push(spec.predictors.map((t) => ('column' in t ? t.column : t.columns.join(' & '))).join(' + '));
+  if (spec.predictors.length) parts.push(spec.predictors.map(termName).join(' + '));
   if (spec.site) parts.push(spec.site.effect === 'random' ? `site random (${spec.site.quadraturePoints} pt${spec.site.quadraturePoints === 1 ? '' : 's'})` : 'site fixed');
-  if (spec.time) parts.push(`season ${spec.time.trend}`);
-  if (hasZeroPart(spec.distribution) && spec.zeroPredictors.length) parts.push(`zero part: ${spec.zeroPredictors.map((t) => ('column' in t ? t.column : '')).join(' + ')}`);
+  if (spec.time && !timeIsPredictor(spec)) parts.push(`season ${spec.time.trend}`);
+  if (hasZeroPart(spec.distribution) && spec.zeroPredictors.length) parts.push(`zero part: ${spec.zeroPredictors.map(termName).join(' + ')}`);
   if (!spec.offsets.length) parts.push('no offset');
   return parts.join(', ');
 }
