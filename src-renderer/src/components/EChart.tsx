@@ -6,8 +6,13 @@ import type { EChartsOption } from 'echarts';
  * One echarts chart in a div, redrawn when its option changes and resized
  * with its box, with "Save PNG" and "Save SVG" links. The container carries
  * data attributes (series ids, number of points) so tests and assistive
- * tools can read what is drawn without the canvas.
+ * tools can read what is drawn without the canvas, and holds the echarts
+ * instance as `echartsInstance` (the browser tests read its option).
+ * `onPointClick` receives a clicked point's data and its series id.
  */
+export type PointClick = (data: unknown, seriesId: string) => void;
+export type ChartBox = HTMLDivElement & { echartsInstance?: echarts.ECharts };
+
 function seriesOf(option: EChartsOption): { id?: unknown; data?: unknown }[] {
   const s = option.series;
   return Array.isArray(s) ? (s as { id?: unknown; data?: unknown }[]) : s ? [s as { id?: unknown; data?: unknown }] : [];
@@ -38,21 +43,26 @@ function svgOf(option: EChartsOption, width: number, height: number): string {
   }
 }
 
-export function EChart({ option, fileName, testId, height = 340 }: { option: EChartsOption; fileName: string; testId?: string; height?: number }) {
-  const box = useRef<HTMLDivElement>(null);
+export function EChart({ option, fileName, testId, height = 340, onPointClick, hint }: { option: EChartsOption; fileName: string; testId?: string; height?: number; onPointClick?: PointClick; hint?: string }) {
+  const box = useRef<ChartBox>(null);
   const chart = useRef<echarts.ECharts | null>(null);
+  const clicked = useRef<PointClick | undefined>(onPointClick);
+  clicked.current = onPointClick;
 
   useEffect(() => {
     const el = box.current;
     if (!el) return;
     const c = echarts.init(el, undefined, { renderer: 'canvas' });
     chart.current = c;
+    el.echartsInstance = c;
+    c.on('click', (p) => clicked.current?.(p.data, String(p.seriesId ?? '')));
     const watcher = new ResizeObserver(() => c.resize());
     watcher.observe(el);
     return () => {
       watcher.disconnect();
       c.dispose();
       chart.current = null;
+      delete el.echartsInstance;
     };
   }, []);
 
@@ -78,6 +88,7 @@ export function EChart({ option, fileName, testId, height = 340 }: { option: ECh
     <figure className="chart" data-testid={testId}>
       <div ref={box} className="chart-box" style={{ height }} data-series={ids.join(' ')} data-points={pointCount(option)} role="img" aria-label={String((option.title as { text?: string } | undefined)?.text ?? 'Chart')} />
       <figcaption className="chart-actions">
+        {hint && <span className="chart-hint">{hint}</span>}
         <button type="button" className="button is-small" onClick={savePng}>
           Save PNG
         </button>

@@ -1,14 +1,19 @@
 import { useEffect, useState } from 'react';
 import { EChart } from '../../components/EChart';
-import type { ChartResult } from './diagnostic-charts';
+import type { ChartId, ChartResult } from './diagnostic-charts';
 import { diagnosticChartsInWorker } from './diagnostics-client';
 import { chartLabels, type FittedModel } from './fitted-model';
 import { distributionNames } from './spec-draft';
+import { clickHint, linkedCharts, pointLink } from './diagnostics/point-records';
+import { showRecords } from './diagnostics/record-link';
+import { OutlierControls } from './diagnostics/OutlierControls';
 
 /**
  * The diagnostic charts of one species: frequencies and zeros for all its
- * models, the rootogram, residuals, QQ and mean–variance for the model shown.
- * Computed in the diagnostics worker; a newer request cancels an older one.
+ * models; the rootogram, residuals (against fitted values, season and site),
+ * QQ, mean–variance, influence by site and the outlier flags for the model
+ * shown. Computed in the diagnostics worker; a newer request cancels an
+ * older one. A click on a record or site point shows its records.
  */
 type State = { state: 'working' } | { state: 'ready'; charts: ChartResult[] } | { state: 'failed'; message: string };
 
@@ -26,7 +31,7 @@ function remember(key: string, charts: ChartResult[]): void {
   while (drawn.size > DRAWN_KEPT) drawn.delete(drawn.keys().next().value as string);
 }
 
-export function DiagnosticsPanel({ species, models, focus, siteColumn, effortColumn }: { species: string; models: readonly FittedModel[]; focus: number; siteColumn: string; effortColumn?: string }) {
+export function DiagnosticsPanel({ species, models, focus, siteColumn, seasonColumn, effortColumn }: { species: string; models: readonly FittedModel[]; focus: number; siteColumn: string; seasonColumn: string; effortColumn?: string }) {
   const key = `${models.map((m) => `${m.id}@${m.fittedAt}`).join('|')}#${focus}`;
   const [state, setState] = useState<State>(() => {
     const known = drawn.get(key);
@@ -53,7 +58,7 @@ export function DiagnosticsPanel({ species, models, focus, siteColumn, effortCol
     const controller = new AbortController();
     setState({ state: 'working' });
     diagnosticChartsInWorker(
-      { models: models.map((m, k) => ({ label: labels[k], outcome: m.outcome })), focus, table: models[0].table, siteColumn, ...(effortColumn ? { effortColumn } : {}) },
+      { models: models.map((m, k) => ({ label: labels[k], outcome: m.outcome, spec: m.spec })), focus, table: (models[focus] ?? models[0]).table, siteColumn, seasonColumn, ...(effortColumn ? { effortColumn } : {}) },
       { signal: controller.signal },
     )
       .then((charts) => {
@@ -64,11 +69,25 @@ export function DiagnosticsPanel({ species, models, focus, siteColumn, effortCol
         if (err.name !== 'FitCancelled') setState({ state: 'failed', message: err.message });
       });
     return () => controller.abort();
-  }, [key, models, focus, siteColumn, effortColumn]);
+  }, [key, models, focus, siteColumn, seasonColumn, effortColumn]);
+
+  const shown = models[focus] ?? models[0];
+  const columns = { site: siteColumn, season: seasonColumn };
+  const onPoint = (id: ChartId) => (data: unknown) => {
+    const link = shown ? pointLink(id, data, shown.table, columns, species) : null;
+    if (link) showRecords(link);
+  };
 
   return (
     <section className="diagnostics" aria-labelledby="diagnostics-heading">
       <h2 id="diagnostics-heading">Diagnostics</h2>
+      <p className="hint">
+        These charts check whether the model describes the counts; they say nothing about detection or changes in effort, which can bias a trend. Have a statistician look over the model choice.
+      </p>
+      <p className="hint" data-testid="keyboard-route">
+        Without a mouse: the records behind any chart point are on the Records stage (choose the site and season in its filters); the improbable totals below have their own button.
+      </p>
+      {shown && <OutlierControls species={species} model={shown.label} dataKey={shown.dataKey} outcome={shown.outcome} table={shown.table} siteColumn={siteColumn} seasonColumn={seasonColumn} />}
       {(state.state === 'working' || (state.state === 'ready' && !painted)) && <p className="status">Drawing the diagnostic charts…</p>}
       {state.state === 'failed' && (
         <p className="problem" role="alert">
@@ -79,7 +98,13 @@ export function DiagnosticsPanel({ species, models, focus, siteColumn, effortCol
         <div className="chart-grid">
           {state.charts.map((c) =>
             'option' in c ? (
-              <EChart key={c.id} option={c.option} fileName={`${slug(species)}-${c.id}`} testId={`chart-${c.id}`} />
+              <EChart
+                key={c.id}
+                option={c.option}
+                fileName={`${slug(species)}-${c.id}`}
+                testId={`chart-${c.id}`}
+                {...(linkedCharts.has(c.id) ? { onPointClick: onPoint(c.id), hint: clickHint(c.id) } : {})}
+              />
             ) : (
               <p key={c.id} className="chart-problem" data-testid={`chart-${c.id}`}>
                 {c.problem}

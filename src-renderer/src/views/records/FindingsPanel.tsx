@@ -4,6 +4,9 @@ import { VirtualList } from '../../components/VirtualList';
 import { flagLabel } from './flags';
 import { describePlace } from './record-set';
 import { showValue } from './describe-entry';
+import type { ModelOutliers } from '../models/diagnostics/model-outliers';
+import type { RecordLink } from '../models/diagnostics/record-link';
+import { MODEL_FLAGS_CLOSED, MODEL_FLAGS_OPEN, ModelFlagsSection } from '../models/diagnostics/ModelFlagsSection';
 
 /**
  * What the import checks found, with the place in the workbook and the usual
@@ -17,8 +20,30 @@ export interface FindingRow {
 const severityRank = { error: 0, warning: 1, info: 2 } as const;
 const severityWords = { error: 'Problem', warning: 'Check', info: 'Note' } as const;
 
-export function FindingsPanel({ rows, height, showFile, onMerge, onLeaveOut, onShow }: { rows: FindingRow[]; height: number; showFile: boolean; onMerge(f: RecordFinding): void; onLeaveOut(f: RecordFinding): void; onShow(f: RecordFinding): void }) {
+export function FindingsPanel({
+  rows,
+  height,
+  showFile,
+  onMerge,
+  onLeaveOut,
+  onShow,
+  outliers = null,
+  onShowLink,
+}: {
+  rows: FindingRow[];
+  height: number;
+  showFile: boolean;
+  onMerge(f: RecordFinding): void;
+  onLeaveOut(f: RecordFinding): void;
+  onShow(f: RecordFinding): void;
+  /** The model's outlier flags, listed above the findings (null: none or out of date). */
+  outliers?: ModelOutliers | null;
+  onShowLink?(link: RecordLink): void;
+}) {
   const [show, setShow] = useState<'open' | 'all'>('open');
+  const [flagsOpen, setFlagsOpen] = useState(false);
+  const withFlags = !!outliers && outliers.result.flags.length > 0;
+  const listHeight = withFlags ? Math.max(120, height - (flagsOpen ? MODEL_FLAGS_OPEN : MODEL_FLAGS_CLOSED)) : height;
   const [severity, setSeverity] = useState<'' | 'error' | 'warning' | 'info'>('');
   const [text, setText] = useState('');
   const list = useMemo(
@@ -32,6 +57,7 @@ export function FindingsPanel({ rows, height, showFile, onMerge, onLeaveOut, onS
   const open = rows.filter((r) => !r.settled).length;
   return (
     <section className="side-section" aria-label="Findings">
+      {withFlags && outliers && <ModelFlagsSection outliers={outliers} open={flagsOpen} onToggle={setFlagsOpen} onShow={(l) => onShowLink?.(l)} />}
       <div className="side-filters">
         <select aria-label="Which findings" value={show} onChange={(e) => setShow(e.target.value as 'open' | 'all')}>
           <option value="open">Still open ({open})</option>
@@ -51,7 +77,7 @@ export function FindingsPanel({ rows, height, showFile, onMerge, onLeaveOut, onS
         <VirtualList
           items={list}
           rowHeight={showFile ? 150 : 134}
-          height={height}
+          height={listHeight}
           label="Findings"
           testId="findings-list"
           render={({ finding: f, settled }) => (

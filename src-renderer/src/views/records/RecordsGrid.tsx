@@ -16,6 +16,7 @@ import { isEdited } from './cleaned';
 import { flagLabel, settledFor } from './flags';
 import { isFiltering, recordPredicate, type RecordFilter } from './record-filter';
 import type { RecordSet } from './record-set';
+import { outlierOf, outlierText, probabilityText, type ModelOutliers } from '../models/diagnostics/model-outliers';
 
 ModuleRegistry.registerModules([AllCommunityModule]);
 
@@ -26,6 +27,8 @@ ModuleRegistry.registerModules([AllCommunityModule]);
  */
 interface GridContext {
   set: RecordSet;
+  /** Model-based outlier flags (from the Models stage), null when none or out of date. */
+  outliers: ModelOutliers | null;
 }
 
 const statusWords: Record<string, string> = {
@@ -40,12 +43,18 @@ const statusWords: Record<string, string> = {
 function FlagsCell(props: CustomCellRendererProps<CleaningRecord, unknown, GridContext>) {
   const rec = props.data;
   if (!rec) return null;
-  const set = props.context.set;
+  const { set, outliers } = props.context;
   const mine = set.findingsOf.get(rec.id) ?? [];
-  if (mine.length === 0) return null;
+  const outlier = outlierOf(outliers, rec);
+  if (mine.length === 0 && !outlier) return null;
   const raw = set.rawById.get(rec.id);
   return (
     <span className="chips">
+      {outlier && outliers && (
+        <span className="chip chip-model" data-probability={outlier.probability} title={outlierText(outliers, outlier)}>
+          model {probabilityText(outlier.probability)}
+        </span>
+      )}
       {mine.map((k) => {
         const f = set.findings[k];
         const settled = settledFor(f, rec, raw);
@@ -82,16 +91,19 @@ export interface RecordsGridProps {
   records: CleaningRecord[];
   set: RecordSet;
   filter: RecordFilter;
+  /** Model-based outlier flags to show (null: none, or out of date). */
+  outliers?: ModelOutliers | null;
   effortUnit?: string;
   onEdit(recordId: string, field: string, typed: unknown): void;
   onSelection(ids: string[]): void;
   onShown(count: number): void;
 }
 
-export function RecordsGrid({ records, set, filter, effortUnit, onEdit, onSelection, onShown }: RecordsGridProps) {
+export function RecordsGrid({ records, set, filter, outliers = null, effortUnit, onEdit, onSelection, onShown }: RecordsGridProps) {
   const api = useRef<GridApi<CleaningRecord> | null>(null);
-  const context = useRef<GridContext>({ set });
+  const context = useRef<GridContext>({ set, outliers });
   context.current.set = set;
+  context.current.outliers = outliers;
   const predicate = useRef<(r: CleaningRecord) => boolean>(() => true);
   const filtering = useRef(false);
 
@@ -101,7 +113,7 @@ export function RecordsGrid({ records, set, filter, effortUnit, onEdit, onSelect
       headerTooltip: editable ? 'Double-click a cell to correct it; the change goes into the log.' : undefined,
     });
     return [
-      { colId: 'flags', headerName: 'Flags', width: 124, cellRenderer: FlagsCell, sortable: false },
+      { colId: 'flags', headerName: 'Flags', width: 150, cellRenderer: FlagsCell, sortable: false },
       text('site', 'Site', 160, true),
       text('date', 'Date', 100, true),
       text('species', 'Species', 130, true),
@@ -125,10 +137,19 @@ export function RecordsGrid({ records, set, filter, effortUnit, onEdit, onSelect
   }, [set, effortUnit]);
 
   useEffect(() => {
-    predicate.current = recordPredicate(filter, set);
+    predicate.current = recordPredicate(filter, set, outliers);
     filtering.current = isFiltering(filter);
     api.current?.onFilterChanged();
-  }, [filter, set]);
+    // A linked set of records is brought into view from its first record.
+    if (filter.link) {
+      const first = api.current?.getDisplayedRowAtIndex(0);
+      if (first) api.current?.ensureNodeVisible(first, 'top');
+    }
+  }, [filter, set, outliers]);
+
+  useEffect(() => {
+    api.current?.refreshCells({ columns: ['flags'], force: true });
+  }, [outliers]);
 
   const isExternalFilterPresent = useCallback(() => filtering.current, []);
   const doesExternalFilterPass = useCallback((node: IRowNode<CleaningRecord>) => (node.data ? predicate.current(node.data) : false), []);
@@ -136,6 +157,8 @@ export function RecordsGrid({ records, set, filter, effortUnit, onEdit, onSelect
   const onModelUpdated = useCallback((e: { api: GridApi<CleaningRecord> }) => onShown(e.api.getDisplayedRowCount()), [onShown]);
   const onGridReady = useCallback((e: { api: GridApi<CleaningRecord> }) => {
     api.current = e.api;
+    // A filter set before the grid was ready (records linked from a chart) is applied now.
+    if (filtering.current) e.api.onFilterChanged();
   }, []);
 
   const onCellEditRequest = useCallback(
