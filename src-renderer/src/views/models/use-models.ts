@@ -1,16 +1,22 @@
-import { useCallback, useRef, useState } from 'react';
+import { useCallback, useEffect, useRef, useState } from 'react';
 import type { DataTable } from '@shared/data/table';
 import type { ModelSpec } from '@shared/model/spec';
 import { fitGroupsInWorkers } from '../../worker/fit-client';
 import { modelId, withModels, type FittedModel } from './fitted-model';
 import { initialDraft, specLabel, type SpecDraft } from './spec-draft';
 import { fitTableFor, rowsOfSpecies } from './fit-table';
+import { choicesFromDocument, savedModels, waitingFromDocument, withDocIds, type SavedModels, type WaitingModel } from './saved-models';
 
 /**
  * The Models stage's state, kept by the App so that it lives on while the
  * analyst visits other stages (a fit keeps running meanwhile): the builder's
  * draft, the fitted models per species and spec, the fit in progress, and
  * the model chosen for the report per species (only ever set by the analyst).
+ *
+ * The project keeps the models' specs and choices (saved-models.ts): every
+ * change the analyst makes is handed to `onSaved` (the project marks itself
+ * changed); `restore` takes them back from an opened project as models
+ * waiting to be fitted again, which `fitWaiting` does.
  */
 export interface RunningFit {
   readonly label: string;
@@ -31,18 +37,32 @@ function isCancel(err: unknown): boolean {
   return err instanceof Error && err.name === 'FitCancelled';
 }
 
-export function useModels() {
+export function useModels(onSaved?: (saved: SavedModels) => void) {
   const [draft, setDraft] = useState<SpecDraft>(initialDraft);
   const [models, setModels] = useState<FittedModel[]>([]);
   const [running, setRunning] = useState<RunningFit | null>(null);
   const [note, setNote] = useState<ModelsNote | null>(null);
   const [forReport, setForReport] = useState<Record<string, string>>({});
   const [shown, setShown] = useState<string | null>(null);
+  const [waiting, setWaiting] = useState<WaitingModel[]>([]);
+  const [docIds, setDocIds] = useState<Record<string, string>>({});
   const abort = useRef<AbortController | null>(null);
+  /** Set by the analyst's actions (not by restoring): the next state is handed to the project. */
+  const touched = useRef(false);
+  /** Waiting models already fitted again automatically since the project was opened. */
+  const tried = useRef(new Set<string>());
+  const savedTo = useRef(onSaved);
+  savedTo.current = onSaved;
 
-  /** Fits the spec to each species of the full analysis table (rows with unusable offsets left out when asked). */
-  const fit = useCallback(async (full: DataTable, spec: ModelSpec, species: readonly string[], key: string, dropBadOffsetRows: boolean) => {
-    if (abort.current) return;
+  useEffect(() => {
+    if (!touched.current) return;
+    touched.current = false;
+    savedTo.current?.(savedModels(models, waiting, forReport, docIds));
+  }, [models, waiting, forReport, docIds]);
+
+  /** Fits the spec to each species of the full analysis table (rows with unusable offsets left out when asked); true when it did not run to the end (busy, cancelled). */
+  const fit = useCallback(async (full: DataTable, spec: ModelSpec, species: readonly string[], key: string, dropBadOffsetRows: boolean): Promise<boolean> => {
+    if (abort.current) return true;
     const controller = new AbortController();
     abort.current = controller;
     const label = specLabel(spec);
@@ -63,13 +83,19 @@ export function useModels() {
           fitted.push({ id: modelId(r.group, spec), species: r.group, spec, label, table: rowsOfSpecies(table, [r.group]), outcome: r.outcome, dataKey: key, fittedAt: now, dropBadOffsetRows });
         } else failed.push(`${r.group}: ${r.error.message}`);
       }
+      touched.current = true;
+      const fittedIds = new Set(fitted.map((f) => f.id));
       setModels((m) => withModels(m, fitted));
+      setWaiting((w) => w.filter((x) => !fittedIds.has(x.id)));
+      setDocIds((d) => ({ ...d, ...withDocIds([...fittedIds].filter((id) => !d[id]), d) }));
       if (fitted.length) setShown((s) => (s && fitted.some((f) => f.species === s) ? s : fitted[0].species));
       if (failed.length) setNote({ kind: 'problem', text: `${failed.length === results.length ? 'The fit failed' : `${failed.length} of ${results.length} fits failed`}. ${failed.join(' ')}` });
       else setNote({ kind: 'info', text: `Fitted "${label}" for ${fitted.map((f) => f.species).join(', ')}.` });
+      return false;
     } catch (err) {
       if (isCancel(err)) setNote({ kind: 'info', text: 'The fit was cancelled; no result was added and the models fitted before are as they were.' });
       else setNote({ kind: 'problem', text: `The fit could not be run: ${err instanceof Error ? err.message : String(err)}` });
+      return isCancel(err);
     } finally {
       abort.current = null;
       setRunning(null);
@@ -79,11 +105,14 @@ export function useModels() {
   const cancel = useCallback(() => abort.current?.abort(), []);
 
   const remove = useCallback((id: string) => {
+    touched.current = true;
     setModels((m) => m.filter((x) => x.id !== id));
+    setWaiting((w) => w.filter((x) => x.id !== id));
     setForReport((r) => Object.fromEntries(Object.entries(r).filter(([, v]) => v !== id)));
   }, []);
 
   const chooseForReport = useCallback((species: string, id: string | null) => {
+    touched.current = true;
     setForReport((r) => {
       const next = { ...r };
       if (id) next[species] = id;
@@ -92,16 +121,61 @@ export function useModels() {
     });
   }, []);
 
-  /** Another project was opened: its models start from nothing (a running fit is cancelled). */
-  const reset = useCallback(() => {
+  /**
+   * Another project was opened (a running fit is cancelled): its saved
+   * models wait to be fitted again, with their choices; none when it has none.
+   */
+  const restore = useCallback((saved: { models: SavedModels['models']; fitCache: SavedModels['fitCache'] } | null) => {
     abort.current?.abort();
+    touched.current = false;
+    tried.current = new Set();
+    const list = saved ? waitingFromDocument(saved.models, saved.fitCache) : [];
     setModels([]);
-    setForReport({});
+    setWaiting(list);
+    setDocIds(Object.fromEntries(list.map((w) => [w.id, w.docId])));
+    setForReport(saved ? choicesFromDocument(saved.models) : {});
     setShown(null);
     setNote(null);
   }, []);
 
-  return { draft, setDraft, models, reset, running, note, dismissNote: () => setNote(null), forReport, chooseForReport, shown, setShown, fit, cancel, remove };
+  /** Fits the given waiting models again, one spec (with its species) at a time; stops at a cancel. */
+  const fitWaiting = useCallback(
+    async (full: DataTable, key: string, which: readonly WaitingModel[]) => {
+      const groups = new Map<string, { spec: ModelSpec; drop: boolean; species: string[] }>();
+      for (const w of which) {
+        const k = `${JSON.stringify(w.spec)}|${w.dropBadOffsetRows}`;
+        const g = groups.get(k) ?? { spec: w.spec, drop: w.dropBadOffsetRows, species: [] };
+        g.species.push(w.species);
+        groups.set(k, g);
+      }
+      for (const g of groups.values()) {
+        const cancelled = await fit(full, g.spec, g.species, key, g.drop);
+        if (cancelled) break;
+      }
+    },
+    [fit],
+  );
+
+  /**
+   * After opening a project: the waiting models whose data are unchanged
+   * since they were fitted (or that were never fitted) are fitted in the
+   * background, once each (with the usual progress and cancel); those fitted
+   * to other data wait for "Fit again", so the analyst sees why.
+   */
+  const autoFit = useCallback(
+    (full: DataTable, key: string) => {
+      if (abort.current) return;
+      const due = waiting.filter((w) => (w.fittedKey === key || w.fittedKey === null) && !tried.current.has(w.id));
+      if (!due.length) return;
+      for (const w of due) tried.current.add(w.id);
+      void fitWaiting(full, key, due);
+    },
+    [waiting, fitWaiting],
+  );
+
+  const reset = useCallback(() => restore(null), [restore]);
+
+  return { draft, setDraft, models, waiting, reset, restore, fitWaiting, autoFit, running, note, dismissNote: () => setNote(null), forReport, chooseForReport, shown, setShown, fit, cancel, remove };
 }
 
 export type ModelsControls = ReturnType<typeof useModels>;

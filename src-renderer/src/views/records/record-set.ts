@@ -1,6 +1,6 @@
-import type { CleaningRecord, FieldValue } from '@shared/cleaning/record';
-import { recordFields, recordId, type LoadedSource, type RecordFinding } from '@shared/host/contract';
-import { unpackColumn } from './unpack-columns';
+import type { CleaningRecord } from '@shared/cleaning/record';
+import type { LoadedSource, RecordFinding } from '@shared/host/contract';
+import { commonEffortUnit, recordsOfSource } from '@shared/analysis/loaded-records';
 
 /**
  * The raw records of every source in the project, as the cleaning log
@@ -36,20 +36,12 @@ export function buildRecordSet(sources: readonly LoadedSource[]): RecordSet {
   const findingsOf = new Map<string, number[]>();
   const fieldColumns = new Map<string, Record<string, string>>();
   for (const s of sources) {
-    const r = s.records;
-    fieldColumns.set(s.summary.fileName, r.fieldColumns);
-    const sheet = unpackColumn(r.sheet, r.n);
-    const row = unpackColumn(r.row, r.n);
-    const column = unpackColumn(r.column, r.n);
-    const values = recordFields.map((f) => [f, r.values[f] ? unpackColumn(r.values[f], r.n) : []] as const);
-    for (let i = 0; i < r.n; i++) {
-      const fields: Record<string, FieldValue> = {};
-      for (const [f, v] of values) fields[f] = v[i] ?? null;
-      const place = { fileName: s.summary.fileName, sheet: String(sheet[i]), row: Number(row[i]), column: String(column[i]) };
-      const id = recordId(r.sourceId, place.sheet, place.column, place.row);
-      raw.push({ id, fields });
-      places.set(id, place);
-    }
+    fieldColumns.set(s.summary.fileName, s.records.fieldColumns);
+    const unpacked = recordsOfSource(s);
+    unpacked.raw.forEach((rec, i) => {
+      raw.push(rec);
+      places.set(rec.id, { fileName: s.summary.fileName, sheet: String(unpacked.sheet[i]), row: Number(unpacked.row[i]), column: String(unpacked.column[i]) });
+    });
     for (const f of s.findings) {
       const k = findings.length;
       findings.push({ ...f, id: `${s.summary.id}/${f.id}` });
@@ -69,8 +61,7 @@ export function buildRecordSet(sources: readonly LoadedSource[]): RecordSet {
     list.push(id);
     visitOf.set(id, list);
   }
-  const units = new Set(sources.map((s) => s.summary.effortUnit).filter(Boolean));
-  return { raw, rawById: new Map(raw.map((x) => [x.id, x])), places, findings, findingsOf, fieldColumns, visitOf, effortUnit: units.size === 1 ? [...units][0] : undefined };
+  return { raw, rawById: new Map(raw.map((x) => [x.id, x])), places, findings, findingsOf, fieldColumns, visitOf, effortUnit: commonEffortUnit(sources) };
 }
 
 /** "Counts, row 23, col. G" (with the file when asked). */

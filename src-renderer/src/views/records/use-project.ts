@@ -5,6 +5,7 @@ import { appendGroup, redoGroup, undoGroup } from './edit-groups';
 import { createProjectDocument } from '@shared/project/document';
 import type { ColumnRoles, LoadedSource, OpenedProject, RecoveryOffer, WireDocument } from '@shared/host/contract';
 import { call } from '../../host';
+import { onlyFitsDiffer, type SavedModels } from '../models/saved-models';
 
 /**
  * The open project in the page: its document (sources by identity, the
@@ -17,6 +18,8 @@ export interface OpenProject {
   name: string;
   dirty: boolean;
   sources: LoadedSource[];
+  /** Raised each time a project is opened or started (not by saving or importing into it): the Models stage restores the project's models then. */
+  openId: number;
 }
 
 export interface DateQuestion {
@@ -42,8 +45,10 @@ const PROJECT_EXT = ['tallywise'];
 const WORKBOOK_EXT = ['xlsx', 'xlsm', 'csv', 'txt'];
 const AUTOSAVE_PAUSE_MS = 800;
 
+let opens = 0;
+
 function fromOpened(o: OpenedProject): OpenProject {
-  return { document: o.document, path: o.path, name: o.name, dirty: false, sources: o.sources };
+  return { document: o.document, path: o.path, name: o.name, dirty: false, sources: o.sources, openId: ++opens };
 }
 
 /** Before something replaces the open project: true when there is nothing unsaved, or the analyst agrees to drop it. */
@@ -107,7 +112,38 @@ export function useProject() {
     [scheduleAutosave],
   );
 
+  /**
+   * The Models stage's models and choices changed: into the document, marked
+   * unsaved; a fit that only adds fit times or first keys for the same
+   * models goes in quietly (nothing the analyst decided has changed).
+   */
+  const setModels = useCallback(
+    (saved: SavedModels) => {
+      const p = current.current;
+      if (!p) return;
+      const quiet = onlyFitsDiffer(saved, { models: p.document.models, fitCache: p.document.fitCache });
+      const next = { ...p, dirty: p.dirty || !quiet, document: { ...p.document, models: saved.models, fitCache: saved.fitCache } };
+      current.current = next;
+      setProject(next);
+      if (!quiet) scheduleAutosave(next);
+    },
+    [scheduleAutosave],
+  );
+
   const edit = useCallback((...drafts: EditDraft[]) => changeLog((log) => (drafts.length ? appendGroup(log, drafts) : log)), [changeLog]);
+
+  /** The Report stage's settings (output folder, species) kept in the project; a change marks it unsaved. */
+  const changeReport = useCallback(
+    (report: { outputFolder: string | null; species: readonly string[] }) => {
+      const p = current.current;
+      if (!p || (p.document.report.outputFolder === report.outputFolder && p.document.report.species.join('\u0000') === report.species.join('\u0000'))) return;
+      const next = { ...p, dirty: true, document: { ...p.document, report: { outputFolder: report.outputFolder, species: [...report.species] } } };
+      current.current = next;
+      setProject(next);
+      scheduleAutosave(next);
+    },
+    [scheduleAutosave],
+  );
   const undo = useCallback(() => changeLog(undoGroup), [changeLog]);
   const redo = useCallback(() => changeLog(redoGroup), [changeLog]);
   const revert = useCallback((id: string) => changeLog((log) => revertEntry(log, id)), [changeLog]);
@@ -117,9 +153,10 @@ export function useProject() {
     setOffer(found);
   }, []);
 
-  const openDemo = useCallback(async () => {
+  /** The demo programme, raw as its workbooks come in, or (recorded) with the cleaning and models recorded for it. */
+  const openDemo = useCallback(async (recorded = false) => {
     if (!mayReplace(current.current)) return;
-    const opened = await run('Writing and reading the demo workbooks…', 'The demo project could not be made.', () => call('project:new-from-demo', {}));
+    const opened = await run('Writing and reading the demo workbooks…', 'The demo project could not be made.', () => call('project:new-from-demo', recorded ? { recorded } : {}));
     if (opened) setProject(fromOpened(opened));
   }, [run]);
 
@@ -144,7 +181,7 @@ export function useProject() {
       }
       const { summary } = source;
       const ref = { id: summary.id, fileName: summary.fileName, size: summary.size, sha256: summary.sha256, importedAt: summary.importedAt };
-      const base: OpenProject = p ?? { document: createProjectDocument(summary.fileName.replace(/\.[^.]+$/, '')), path: null, name: 'Untitled project', dirty: false, sources: [] };
+      const base: OpenProject = p ?? { document: createProjectDocument(summary.fileName.replace(/\.[^.]+$/, '')), path: null, name: 'Untitled project', dirty: false, sources: [], openId: ++opens };
       const next: OpenProject = { ...base, dirty: true, sources: [...base.sources, source], document: { ...base.document, sources: [...base.document.sources, ref] } };
       current.current = next;
       setProject(next);
@@ -201,15 +238,20 @@ export function useProject() {
     async (path: string) => {
       const p = current.current;
       if (!p) return;
-      const saved = await run('Saving…', 'The project could not be saved.', () => call('project:save', { path, document: p.document }));
-      if (!saved) return;
+      // No autosave may land while saving: it would leave a recovery file newer than the saved project.
       clearTimeout(autosaveTimer.current);
+      const saved = await run('Saving…', 'The project could not be saved.', () => call('project:save', { path, document: p.document }));
+      if (!saved) {
+        if (current.current?.dirty) scheduleAutosave(current.current);
+        return;
+      }
       const latest = current.current ?? p;
       const next = { ...latest, path: saved.path, name: saved.name, dirty: latest.document !== p.document };
       current.current = next;
       setProject(next);
+      if (next.dirty) scheduleAutosave(next);
     },
-    [run],
+    [run, scheduleAutosave],
   );
 
   const saveAs = useCallback(async () => {
@@ -235,6 +277,18 @@ export function useProject() {
     await call('project:discard-recovery', { path: offer?.projectPath ?? null }).catch(() => undefined);
   }, [offer]);
 
+  // Closing the window with unsaved changes asks first (the desktop shell shows the question; see window.ts).
+  const dirty = !!project?.dirty;
+  useEffect(() => {
+    if (!dirty) return;
+    const ask = (e: BeforeUnloadEvent) => {
+      e.preventDefault();
+      e.returnValue = '';
+    };
+    window.addEventListener('beforeunload', ask);
+    return () => window.removeEventListener('beforeunload', ask);
+  }, [dirty]);
+
   useEffect(() => {
     checkRecovery(null).catch(() => undefined);
     return () => clearTimeout(autosaveTimer.current);
@@ -244,7 +298,7 @@ export function useProject() {
     project, busy, problem, question, rolesQuestion, offer,
     dismissProblem: () => setProblem(null),
     showProblem: setProblem,
-    edit, undo, redo, revert,
+    edit, undo, redo, revert, setModels, changeReport,
     openDemo, importWorkbook, importPath, answerQuestion, answerRoles, openProject, save, saveAs, restoreRecovery, discardRecovery,
   };
 }
