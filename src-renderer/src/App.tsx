@@ -8,6 +8,9 @@ import { RolesDialog } from './views/records/RolesDialog';
 import { useProject } from './views/records/use-project';
 import { ModelsView } from './views/models/ModelsView';
 import { useModels } from './views/models/use-models';
+import { ReportView } from './views/report/ReportView';
+import { useReportRun } from './views/report/use-report-run';
+import { onRecordLink } from './views/models/diagnostics/record-link';
 import { StageRail, type Stage } from './components/StageRail';
 import { Cautions } from './components/Cautions';
 import { RecoveryBanner } from './components/RecoveryBanner';
@@ -25,7 +28,8 @@ export function App() {
   const [stage, setStage] = useState<Stage>('programme');
   const [dropping, setDropping] = useState(false);
   const controls = useProject();
-  const models = useModels();
+  const models = useModels(controls.setModels);
+  const reportRun = useReportRun();
   const { project } = controls;
   const latest = useRef(controls);
   latest.current = controls;
@@ -56,13 +60,23 @@ export function App() {
     return onHostCommand((command) => actions[command]?.());
   }, []);
 
-  // A newly opened or imported project is shown on the Records stage.
-  const opened = project ? `${project.path ?? ''}|${project.document.createdAt}|${project.sources.length}` : '';
-  const resetModels = models.reset;
+  // A chart point on the Models stage links to its records: show them on the Records stage.
+  useEffect(() => onRecordLink(() => setStage('records')), []);
+
+  // A newly opened or imported project is shown on the Records stage (saving it, which changes its path, is neither).
+  const opened = project ? `${project.openId}|${project.document.createdAt}|${project.sources.length}` : '';
+  const resetReport = reportRun.reset;
   useEffect(() => {
     if (opened) setStage('records');
-    resetModels();
-  }, [opened, resetModels]);
+    resetReport();
+  }, [opened, resetReport]);
+
+  // Each project opened (not saved or imported into) brings back its saved models, waiting to be fitted again.
+  const restoreModels = models.restore;
+  const openId = project?.openId ?? 0;
+  useEffect(() => {
+    restoreModels(latest.current.project?.document ?? null);
+  }, [openId, restoreModels]);
 
   const programmeTitle = load.state === 'ready' ? load.overview.programme : 'Tallywise';
   const title = project ? project.name : programmeTitle;
@@ -92,6 +106,9 @@ export function App() {
       onDragLeave={() => setDropping(false)}
       onDrop={onDrop}
     >
+      <button type="button" className="skip-link" onClick={() => document.getElementById('workspace')?.focus()}>
+        Skip to the stage
+      </button>
       <header className="topbar">
         <span className="brand" aria-label="Tallywise">
           <span className="brand-mark" aria-hidden="true">
@@ -115,7 +132,7 @@ export function App() {
         <span className="topbar-version">{info ? `v${info.version}` : ''}</span>
       </header>
       <StageRail current={stage} onChoose={setStage} />
-      <main className={stage === 'records' ? 'workspace is-records' : 'workspace'} aria-live="polite">
+      <main id="workspace" tabIndex={-1} className={stage === 'records' ? 'workspace is-records' : 'workspace'} aria-live="polite">
         {controls.offer && <RecoveryBanner offer={controls.offer} onRestore={() => void controls.restoreRecovery()} onDiscard={() => void controls.discardRecovery()} />}
         {controls.problem && (
           <div className="problem" role="alert" data-testid="problem">
@@ -144,6 +161,7 @@ export function App() {
         )}
         {stage === 'records' && <RecordsView controls={controls} />}
         {stage === 'models' && <ModelsView controls={controls} models={models} overview={load.state === 'ready' ? load.overview : null} />}
+        {stage === 'report' && <ReportView controls={controls} models={models} run={reportRun} version={info?.version ?? ''} onSettings={controls.changeReport} />}
       </main>
       {controls.question && <DateOrderDialog question={controls.question} onAnswer={controls.answerQuestion} />}
       {controls.rolesQuestion && <RolesDialog question={controls.rolesQuestion} onDone={controls.answerRoles} />}

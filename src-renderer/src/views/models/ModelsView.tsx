@@ -1,22 +1,19 @@
 import { useEffect, useMemo, useState } from 'react';
 import type { ProgrammeOverview } from '@shared/host/contract';
 import type { ModelSpec } from '@shared/model/spec';
-import { buildRecordSet } from '../records/record-set';
-import { cleanRecords } from '../records/cleaned';
 import type { ProjectControls } from '../records/use-project';
-import { analysisTableOf, dataKey } from './analysis-input';
+import { cleanedAnalysis } from './analysis-input';
 import { memoLast } from './memo-last';
-import type { LoadedSource } from '@shared/host/contract';
-import type { EditLog } from '@shared/cleaning/edit-entry';
-import { siteAttributesOf } from './site-attributes';
+import { useSiteSheet } from './site-attributes';
+import { SavedModelsPanel } from './SavedModelsPanel';
 import { predictorColumns, specOf, speciesOf, tableRoles, type SpecDraft, type TableRoles } from './spec-draft';
 import type { DataTable } from '@shared/data/table';
 import { fitTableFor, rowsOfSpecies } from './fit-table';
-import { checkSpec } from './spec-checks';
+import { checkSpec } from '@shared/model/spec-checks';
 import { modelEquation } from './equation';
 import type { ModelsControls, RunningFit } from './use-models';
 import { modelsOf } from './fitted-model';
-import { compareModels } from './comparison';
+import { compareModels } from '@shared/model/comparison';
 import { SpecBuilder } from './SpecBuilder';
 import { ComparisonPanel } from './ComparisonPanel';
 import { ModelResult } from './ModelResult';
@@ -43,14 +40,6 @@ function FitProgress({ running, onCancel }: { running: RunningFit; onCancel: () 
   );
 }
 
-/** The cleaned records and their analysis table, remembered between visits to the stage. */
-const cleanedAnalysis = memoLast((sources: readonly LoadedSource[] | undefined, log: EditLog | undefined, overview: ProgrammeOverview | null) => {
-  if (!sources || !log) return { cleaned: null, analysis: null };
-  const set = buildRecordSet(sources);
-  const cleaned = cleanRecords(set.raw, log);
-  const names = new Set(cleaned.records.map((r) => String(r.fields.site ?? '').trim()));
-  return { cleaned, analysis: analysisTableOf(cleaned.records, set.effortUnit, siteAttributesOf(overview, names)) };
-});
 
 interface Built {
   spec: ModelSpec | null;
@@ -66,7 +55,6 @@ const tableParts = memoLast((table: DataTable | undefined, effortColumn: string 
   return { roles, species: speciesOf(table), columns: predictorColumns(table, roles) };
 });
 
-const keyOf = memoLast((sources: readonly LoadedSource[] | undefined, log: EditLog | undefined) => (log && sources ? dataKey(sources.map((s) => s.summary.id), log) : ''));
 
 const speciesChecks = memoLast((draft: SpecDraft, table: DataTable | undefined, roles: TableRoles | null, species: readonly string[]): Built => {
   const chosenSpecies = draft.species.filter((s) => species.includes(s));
@@ -82,23 +70,36 @@ const speciesChecks = memoLast((draft: SpecDraft, table: DataTable | undefined, 
   return { spec, problems: checkSpec(spec, rows, roles), leftOut: prepared.leftOut, chosen: chosenSpecies };
 });
 
+/** The species tab shown: the analyst's pick while it has models, else the first with any. */
+function shownSpeciesOf(picked: string | null, withModels: readonly string[]): string | null {
+  return picked && withModels.includes(picked) ? picked : (withModels[0] ?? null);
+}
+
 /** The Models stage: build a model, fit it per species in the worker, compare, read the diagnostics. */
-export function ModelsView({ controls, models: m, overview }: { controls: ProjectControls; models: ModelsControls; overview: ProgrammeOverview | null }) {
+export function ModelsView({ controls, models: m }: { controls: ProjectControls; models: ModelsControls; overview: ProgrammeOverview | null }) {
   const { project } = controls;
   const sources = project?.sources;
   const log = project?.document.cleaning;
-  const { cleaned, analysis } = cleanedAnalysis(sources, log, overview);
-  const key = keyOf(sources, log);
+  const site = useSiteSheet(project);
+  const input = site.loading ? null : cleanedAnalysis(sources, log, site.sheet);
+  const analysis = input?.analysis;
+  const key = input?.dataKey ?? '';
   const table = analysis?.table;
   const { roles, species, columns } = tableParts(table, analysis?.effortColumn);
   const { draft, setDraft } = m;
 
   const built = speciesChecks(draft, table, roles, species);
   const chosenSpecies = built.chosen;
-  const equation = useMemo(() => (built.spec && roles ? modelEquation(built.spec, roles) : []), [built, roles]);
+  const equation = useMemo(() => (built.spec && roles ? modelEquation(built.spec, roles, columns) : null), [built, roles, columns]);
 
-  const fittedSpecies = useMemo(() => species.filter((s) => m.models.some((x) => x.species === s)), [species, m.models]);
-  const shownSpecies = m.shown && fittedSpecies.includes(m.shown) ? m.shown : (fittedSpecies[0] ?? null);
+  const fittedSpecies = useMemo(() => species.filter((s) => m.models.some((x) => x.species === s) || m.waiting.some((x) => x.species === s)), [species, m.models, m.waiting]);
+  const waitingHere = useMemo(() => m.waiting.filter((x) => x.species === shownSpeciesOf(m.shown, fittedSpecies)), [m.waiting, m.shown, fittedSpecies]);
+  // Saved models whose data are unchanged are fitted again in the background.
+  const { autoFit } = m;
+  useEffect(() => {
+    if (table && key && !m.running) autoFit(table, key);
+  }, [table, key, autoFit, m.running]);
+  const shownSpecies = shownSpeciesOf(m.shown, fittedSpecies);
   const speciesModels = useMemo(() => (shownSpecies ? modelsOf(m.models, shownSpecies) : []), [m.models, shownSpecies]);
   const comparison = useMemo(() => compareModels(speciesModels), [speciesModels]);
   const [focusId, setFocusId] = useState<string | null>(null);
@@ -116,7 +117,11 @@ export function ModelsView({ controls, models: m, overview }: { controls: Projec
     return (
       <section className="records-empty" aria-labelledby="models-heading">
         <h1 id="models-heading">Models</h1>
-        <p className="lede">Models are fitted to the cleaned records of a project. Open the demo project or import a season workbook on the Records stage first.</p>
+        {project && site.loading ? (
+          <p className="status">Reading the project's site list…</p>
+        ) : (
+          <p className="lede">Models are fitted to the cleaned records of a project. Open the demo project or import a season workbook on the Records stage first.</p>
+        )}
       </section>
     );
   }
@@ -140,7 +145,7 @@ export function ModelsView({ controls, models: m, overview }: { controls: Projec
         <div>
           <h1 id="models-heading">Models</h1>
           <p className="records-summary" data-testid="models-summary">
-            {table.nrows} analysis rows (site × season × species, counts summed over visits) from {cleaned?.records.filter((r) => !r.excluded).length ?? 0} cleaned records; {species.length} species.
+            {table.nrows} analysis rows (site × season × species, counts summed over visits) from {input?.cleaned.filter((r) => !r.excluded).length ?? 0} cleaned records; {species.length} species.
           </p>
         </div>
       </header>
@@ -167,7 +172,7 @@ export function ModelsView({ controls, models: m, overview }: { controls: Projec
                 {fittedSpecies.map((s) => (
                   <button key={s} type="button" role="tab" aria-selected={s === shownSpecies} className={s === shownSpecies ? 'tab is-current' : 'tab'} onClick={() => m.setShown(s)}>
                     {s}
-                    <span className="tab-count">{modelsOf(m.models, s).length}</span>
+                    <span className="tab-count">{modelsOf(m.models, s).length + m.waiting.filter((x) => x.species === s && !m.models.some((f) => f.id === x.id)).length}</span>
                   </button>
                 ))}
               </div>
@@ -181,7 +186,8 @@ export function ModelsView({ controls, models: m, overview }: { controls: Projec
                   </button>
                 </div>
               )}
-              <ComparisonPanel
+              <SavedModelsPanel waiting={waitingHere} dataKey={key} chosen={shownSpecies ? (m.forReport[shownSpecies] ?? null) : null} busy={!!m.running} onFit={(which) => void m.fitWaiting(table, key, which)} />
+              {speciesModels.length > 0 && <ComparisonPanel
                 comparison={comparison}
                 chosen={shownSpecies ? (m.forReport[shownSpecies] ?? null) : null}
                 shown={focusModel?.id ?? null}
@@ -189,9 +195,9 @@ export function ModelsView({ controls, models: m, overview }: { controls: Projec
                 onChoose={(id) => shownSpecies && m.chooseForReport(shownSpecies, id)}
                 onShow={setFocusId}
                 onRemove={m.remove}
-              />
+              />}
               {focusModel && <ModelResult model={focusModel} />}
-              {shownSpecies && focusModel && <DiagnosticsPanel species={shownSpecies} models={speciesModels} focus={focus} siteColumn={roles.site} effortColumn={roles.effort?.column} />}
+              {shownSpecies && focusModel && <DiagnosticsPanel species={shownSpecies} models={speciesModels} focus={focus} siteColumn={roles.site} seasonColumn={roles.season} effortColumn={roles.effort?.column} />}
             </>
           )}
         </div>

@@ -10,7 +10,11 @@ import { ConvertEffortDialog } from './ConvertEffortDialog';
 import { buildRecordSet, describePlace } from './record-set';
 import { cleanRecords } from './cleaned';
 import { findingSettled, flagLabels } from './flags';
-import { distinctValues, noFilter, type RecordFilter } from './record-filter';
+import { distinctValues, linkedFilter, noFilter, type RecordFilter } from './record-filter';
+import { takeRecordLink } from '../models/diagnostics/record-link';
+import { LinkedRecordsNote } from '../models/diagnostics/LinkedRecordsNote';
+import { useModelOutliers } from '../models/diagnostics/model-outliers';
+import { dataKey } from '@shared/analysis/data-key';
 import { readEdit } from './edit-values';
 import type { ProjectControls } from './use-project';
 
@@ -35,7 +39,16 @@ export function RecordsView({ controls }: { controls: ProjectControls }) {
   const set = useMemo(() => buildRecordSet(sources ?? []), [sources]);
   const log = project?.document.cleaning;
   const cleaned = useMemo(() => (log ? cleanRecords(set.raw, log) : null), [set, log]);
-  const [filter, setFilter] = useState<RecordFilter>(noFilter);
+  // Records a chart point on the Models stage links to are shown on arrival.
+  const [filter, setFilter] = useState<RecordFilter>(() => {
+    const link = takeRecordLink();
+    return link ? linkedFilter(link) : noFilter;
+  });
+  // Model-based outlier flags, shown only while the records are those the model was fitted to.
+  const modelOutliers = useModelOutliers();
+  const siteLink = project?.document.sites ?? null;
+  const currentKey = useMemo(() => (sources && log ? dataKey(sources.map((s) => s.summary.id), log, siteLink) : ''), [sources, log, siteLink]);
+  const outliers = modelOutliers && modelOutliers.dataKey === currentKey ? modelOutliers : null;
   const [selected, setSelected] = useState<string[]>([]);
   const [shown, setShown] = useState(0);
   const [tab, setTab] = useState<'findings' | 'log'>('findings');
@@ -126,6 +139,9 @@ export function RecordsView({ controls }: { controls: ProjectControls }) {
           <button type="button" className="button" onClick={() => void controls.openDemo()}>
             Try the demo project
           </button>
+          <button type="button" className="button" onClick={() => void controls.openDemo(true)} title="The demo with the cleaning an analyst recorded for its planted problems, and a model chosen per species">
+            Demo, already cleaned
+          </button>
         </div>
         <p className="hint">You can also drop an .xlsx or .csv file onto this window.</p>
       </section>
@@ -181,6 +197,13 @@ export function RecordsView({ controls }: { controls: ProjectControls }) {
               </option>
             ))}
             {findingFilter && <option value={filter.flag}>One finding: {describePlace(findingFilter)}</option>}
+            {outliers && <option value="model-outliers">Model outliers: {outliers.result.flags.length} {outliers.species} totals</option>}
+            {modelOutliers && !outliers && (
+              <option value="model-outliers" disabled>
+                Model outliers: out of date (fit the model again)
+              </option>
+            )}
+            {filter.link && <option value="linked">From a chart: {filter.link.label}</option>}
           </select>
         </label>
         <label className="tool">
@@ -229,6 +252,7 @@ export function RecordsView({ controls }: { controls: ProjectControls }) {
           Effort unit…
         </button>
       </div>
+      <LinkedRecordsNote link={filter.flag === 'linked' ? filter.link : undefined} outliers={outliers} showingOutliers={filter.flag === 'model-outliers'} onClear={() => setFilter(noFilter)} />
       {note && (
         <div className="problem" role="alert">
           {note}{' '}
@@ -244,7 +268,7 @@ export function RecordsView({ controls }: { controls: ProjectControls }) {
       )}
       <div className="records-body">
         <div className="records-main">
-          <RecordsGrid records={cleaned.records} set={set} filter={filter} effortUnit={set.effortUnit} onEdit={onEdit} onSelection={setSelected} onShown={setShown} />
+          <RecordsGrid records={cleaned.records} set={set} filter={filter} outliers={outliers} effortUnit={set.effortUnit} onEdit={onEdit} onSelection={setSelected} onShown={setShown} />
           <div className="grid-foot">
             <p data-testid="records-shown">
               Showing {fmt.format(shown)} of {fmt.format(cleaned.records.length)} records. Double-click a cell to correct it; a site, date or effort applies to its whole visit row.
@@ -266,7 +290,7 @@ export function RecordsView({ controls }: { controls: ProjectControls }) {
           </div>
           <div className="side-body" ref={sideRef}>
             {tab === 'findings' ? (
-              <FindingsPanel rows={findingRows} height={Math.max(200, sideHeight - 48)} showFile={project.sources.length > 1} onMerge={merge} onLeaveOut={leaveOutCopy} onShow={showFinding} />
+              <FindingsPanel rows={findingRows} height={Math.max(200, sideHeight - 48)} showFile={project.sources.length > 1} onMerge={merge} onLeaveOut={leaveOutCopy} onShow={showFinding} outliers={outliers} onShowLink={(l) => setFilter(linkedFilter(l))} />
             ) : (
               <AuditLog log={log} set={set} height={Math.max(200, sideHeight - 48)} onRevert={revert} />
             )}
