@@ -33,9 +33,9 @@ describe('the Models stage', () => {
       await page.getByRole('checkbox', { name: toad.label, exact: true }).check();
       // The model written out follows the choices (site effect fixed and season annual by default; effort offset in hours).
       const equation = page.getByTestId('model-equation');
-      await expect(equation.textContent()).resolves.toContain('log(effort hours)');
+      await expect(equation.textContent()).resolves.toContain('effort in hours (column effort_h)');
       await page.getByRole('checkbox', { name: /^area/ }).check();
-      await expect(equation.textContent()).resolves.toContain('log(area ha)');
+      await expect(equation.textContent()).resolves.toContain('area in ha (column area_ha)');
       // The demo's sheets have planted slips (a blank effort cell, pond names misspelt, so their area is unknown):
       // the fit is refused with the place named, until the analyst cleans them or leaves those rows out.
       const problems = page.getByTestId('spec-problems');
