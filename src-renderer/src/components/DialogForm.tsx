@@ -1,13 +1,17 @@
-import type { ReactNode } from 'react';
+import { useRef, type ReactNode } from 'react';
+import { dialogKeys, useDialogFocus } from './dialog-focus';
 
 /**
  * The frame every form dialog shares: a modal backdrop, a labelled form that
- * submits on Enter and cancels on Escape, and the title.
+ * submits on Enter and cancels on Escape, keeps Tab inside, and the title.
  */
 export function DialogForm({ id, title, wide, onSubmit, onCancel, children }: { id: string; title: ReactNode; wide?: boolean; onSubmit(): void; onCancel(): void; children: ReactNode }) {
+  const box = useRef<HTMLFormElement>(null);
+  useDialogFocus(box);
   return (
     <div className="dialog-backdrop">
       <form
+        ref={box}
         className={wide ? 'dialog is-wide' : 'dialog'}
         role="dialog"
         aria-modal="true"
@@ -16,9 +20,7 @@ export function DialogForm({ id, title, wide, onSubmit, onCancel, children }: { 
           e.preventDefault();
           onSubmit();
         }}
-        onKeyDown={(e) => {
-          if (e.key === 'Escape') onCancel();
-        }}
+        onKeyDown={(e) => dialogKeys(e, onCancel)}
       >
         <h2 id={id}>{title}</h2>
         {children}
