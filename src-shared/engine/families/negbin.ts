@@ -1,4 +1,5 @@
-import { logLink } from '../links/log';
+import { logLink, logMeanAt } from '../links/log';
+import { logCount } from '../math/log-count';
 import { lgammaRatio, logFactorial } from '../math/lgamma';
 import type { Family } from './types';
 import { signedRoot } from './types';
@@ -26,8 +27,19 @@ export function negbinFamily(theta: number): Family {
       }
     },
     unitDeviance,
-    deviance: (y, mu, w) => {
+    deviance: (y, mu, w, eta) => {
       let s = 0;
+      if (eta) {
+        // y log(y / mu) = y (log y - log mu): log y from the table of counts, log mu from eta.
+        for (let i = 0; i < y.length; i++) {
+          const yi = y[i];
+          const m = mu[i];
+          const a = yi > 0 ? yi * (logCount(yi) - logMeanAt(eta[i], m)) : 0;
+          const d = 2 * (a - (yi + theta) * Math.log((yi + theta) / (m + theta)));
+          s += w ? w[i] * d : d;
+        }
+        return s;
+      }
       for (let i = 0; i < y.length; i++) s += w ? w[i] * nbUnitDeviance(y[i], mu[i], theta) : nbUnitDeviance(y[i], mu[i], theta);
       return s;
     },

@@ -1,4 +1,5 @@
-import { logLink } from '../links/log';
+import { logLink, logMeanAt } from '../links/log';
+import { logCount } from '../math/log-count';
 import { logFactorial } from '../math/lgamma';
 import type { Family } from './types';
 import { signedRoot } from './types';
@@ -20,8 +21,18 @@ export const poissonFamily: Family = {
     }
   },
   unitDeviance,
-  deviance: (y, mu, w) => {
+  deviance: (y, mu, w, eta) => {
     let s = 0;
+    if (eta) {
+      // y log(y / mu) = y (log y - log mu): log y from the table of counts, log mu from eta.
+      for (let i = 0; i < y.length; i++) {
+        const yi = y[i];
+        const m = mu[i];
+        const d = yi > 0 ? 2 * (yi * (logCount(yi) - logMeanAt(eta[i], m)) - (yi - m)) : 2 * m;
+        s += w ? w[i] * d : d;
+      }
+      return s;
+    }
     for (let i = 0; i < y.length; i++) s += w ? w[i] * unitDeviance(y[i], mu[i]) : unitDeviance(y[i], mu[i]);
     return s;
   },

@@ -19,8 +19,13 @@ export interface Family {
   workingWeights(eta: Float64Array, mu: Float64Array, pw: Float64Array | null, out: Float64Array): void;
   /** Unit deviance d(y, mu) >= 0 (the squared deviance residual). */
   unitDeviance(y: number, mu: number): number;
-  /** sum_i w_i d(y_i, mu_i) (w null: unit weights), in one loop with no call per observation. */
-  deviance(y: Float64Array, mu: Float64Array, w: Float64Array | null): number;
+  /**
+   * sum_i w_i d(y_i, mu_i) (w null: unit weights), in one loop with no call
+   * per observation. `eta`, when the caller has it: the linear predictor
+   * with mu = max(exp(eta), floor) (log link), so that log(mu) is read from
+   * it, not computed (see logMeanAt).
+   */
+  deviance(y: Float64Array, mu: Float64Array, w: Float64Array | null, eta?: Float64Array | null): number;
   /** Signed deviance residual sign(y - mu) * sqrt(d(y, mu)). */
   devianceResidual(y: number, mu: number): number;
   /** Full log-likelihood of one observation, constants included; null when there is no likelihood (quasi). */

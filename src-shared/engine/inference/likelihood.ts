@@ -10,8 +10,9 @@ export function logLikelihood(family: Family, y: Float64Array, mu: Float64Array,
   return s;
 }
 
-export function totalDeviance(family: Family, y: Float64Array, mu: Float64Array, w: Float64Array | null = null): number {
-  return family.deviance(y, mu, w);
+/** Total deviance; `eta` as in Family.deviance (the log link's linear predictor, when the caller has it). */
+export function totalDeviance(family: Family, y: Float64Array, mu: Float64Array, w: Float64Array | null = null, eta: Float64Array | null = null): number {
+  return family.deviance(y, mu, w, eta);
 }
 
 /** Sum of squared Pearson residuals (y - mu)^2 / V(mu). */
