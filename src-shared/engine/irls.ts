@@ -35,6 +35,14 @@ export interface IrlsInput {
   readonly startBeta?: Float64Array;
   /** Start from these means (used when no startBeta). */
   readonly startMu?: Float64Array;
+  /**
+   * With startBeta: its linear predictor X startBeta + offset and means, as an
+   * earlier fit with the same design and offset returned them (copied, not
+   * recomputed; they are the same numbers).
+   */
+  readonly startAt?: { readonly eta: Float64Array; readonly mu: Float64Array };
+  /** Scratch arrays of n numbers to use instead of fresh ones (one per fit in a sequence of fits). */
+  readonly work?: IrlsWork;
   /** The design's column structure, when the caller has it (else computed here). */
   readonly structure?: ColumnStructure;
   /** Compute (X'WX)^-1 at the end (default true); false leaves xtwxInverse empty. */
@@ -60,6 +68,16 @@ export interface IrlsResult {
 
 const MAX_HALVINGS = 30;
 
+/** Scratch space of IRLS: overwritten by every fit that is given it, never part of a result. */
+export interface IrlsWork {
+  readonly z: Float64Array<ArrayBuffer>;
+  readonly etaNew: Float64Array<ArrayBuffer>;
+}
+
+export function irlsWork(n: number): IrlsWork {
+  return { z: new Float64Array(n), etaNew: new Float64Array(n) };
+}
+
 /**
  * (X'WX)^-1 with the working weights w = prior * mu'(eta)^2 / V(mu) at the
  * given linear predictor and means; the weights are written to `wOut`.
@@ -72,7 +90,7 @@ export function glmCovariance(
   mu: Float64Array,
   family: Family,
   pw: Float64Array | null = null,
-  wOut = new Float64Array(n),
+  wOut: Float64Array = new Float64Array(n),
   structure?: ColumnStructure,
 ): Float64Array {
   family.workingWeights(eta, mu, pw, wOut);
@@ -98,23 +116,29 @@ export function irls(input: IrlsInput): IrlsResult {
   const eta = new Float64Array(n);
   const mu = new Float64Array(n);
   let beta: Float64Array | null = null;
-  if (input.startBeta) {
+  if (input.startBeta && input.startAt) {
+    beta = Float64Array.from(input.startBeta);
+    eta.set(input.startAt.eta);
+    mu.set(input.startAt.mu);
+  } else if (input.startBeta) {
     beta = Float64Array.from(input.startBeta);
     matVec(x, n, p, beta, offset, eta, structure);
+    link.linkinvAll(eta, mu);
   } else {
     for (let i = 0; i < n; i++) eta[i] = link.linkfun(input.startMu ? input.startMu[i] : family.start(y[i]));
+    link.linkinvAll(eta, mu);
   }
-  link.linkinvAll(eta, mu);
-  let devOld = totalDeviance(family, y, mu, pw);
+  // With the log link the deviance reads log(mu) from eta.
+  const etaOf = (e: Float64Array): Float64Array | null => (logLinkFast ? e : null);
+  let devOld = totalDeviance(family, y, mu, pw, etaOf(eta));
   if (!Number.isFinite(devOld)) {
     throw new FitInputError('non-finite-start', 'The starting values give a non-finite deviance, so the fit cannot start. Check the response and offsets for extreme values.');
   }
 
-  const z = new Float64Array(n);
+  const { z, etaNew } = input.work ?? irlsWork(n);
   const w = new Float64Array(n);
   const xtwx = new Float64Array(p * p);
   const xtwz = new Float64Array(p);
-  const etaNew = new Float64Array(n);
   let converged = false;
   let iterations = 0;
   let dev = devOld;
@@ -143,7 +167,7 @@ export function irls(input: IrlsInput): IrlsResult {
     let betaNew = sol.x;
     matVec(x, n, p, betaNew, offset, etaNew, structure);
     link.linkinvAll(etaNew, mu);
-    dev = totalDeviance(family, y, mu, pw);
+    dev = totalDeviance(family, y, mu, pw, etaOf(etaNew));
     // Step-halving when the deviance is not finite, or rises (from the first step on when
     // the start was given as coefficients, since there is then a previous step to go back to).
     let halvings = 0;
@@ -160,7 +184,7 @@ export function irls(input: IrlsInput): IrlsResult {
       betaNew = half;
       matVec(x, n, p, betaNew, offset, etaNew, structure);
       link.linkinvAll(etaNew, mu);
-      dev = totalDeviance(family, y, mu, pw);
+      dev = totalDeviance(family, y, mu, pw, etaOf(etaNew));
     }
     if (!Number.isFinite(dev)) {
       throw new FitInputError('non-finite-deviance', 'The deviance became non-finite and step-halving could not recover. Check the response and offsets for extreme values.');

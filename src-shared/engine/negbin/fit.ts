@@ -18,10 +18,11 @@
 import { negbinFamily } from '../families/negbin';
 import { poissonFamily } from '../families/poisson';
 import type { IrlsResult } from '../irls';
-import { glmCovariance, irls } from '../irls';
+import { glmCovariance, irls, irlsWork } from '../irls';
 import type { ColumnStructure } from '../linalg/dense';
 import { columnStructure } from '../linalg/dense';
 import { logLikelihood, totalDeviance } from '../inference/likelihood';
+import { logMeanAt } from '../links/log';
 import type { FitControl, Warning } from '../types';
 import { FitCancelled } from '../types';
 import { countTable, lgammaRatioSum, logFactorialSum } from './count-table';
@@ -68,13 +69,33 @@ export const BOUNDARY_THETA_SENTENCE = 'no overdispersion: the negative binomial
  * per-observation log-likelihood summed, its Gamma-function and factorial
  * terms taken once per distinct count (`table`: the count table of y and w).
  */
-export function negbinLogLik(y: Float64Array, mu: Float64Array, theta: number, w: Float64Array | null = null, table = countTable(y, w)): number {
+export function negbinLogLik(
+  y: Float64Array,
+  mu: Float64Array,
+  theta: number,
+  w: Float64Array | null = null,
+  table = countTable(y, w),
+  eta: Float64Array | null = null,
+): number {
   let s = 0;
-  for (let i = 0; i < y.length; i++) {
-    const yi = y[i];
-    const m = mu[i];
-    const v = -theta * Math.log1p(m / theta) + (yi > 0 ? yi * Math.log(m / (m + theta)) : 0);
-    s += w ? w[i] * v : v;
+  if (eta) {
+    // With the linear predictor (log link): log(mu / (mu + theta)) = log(mu) - log(theta) - log1p(mu / theta),
+    // log(mu) read from eta, so one logarithm per observation.
+    const logTheta = Math.log(theta);
+    for (let i = 0; i < y.length; i++) {
+      const yi = y[i];
+      const m = mu[i];
+      const l = Math.log1p(m / theta);
+      const v = -theta * l + (yi > 0 ? yi * (logMeanAt(eta[i], m) - logTheta - l) : 0);
+      s += w ? w[i] * v : v;
+    }
+  } else {
+    for (let i = 0; i < y.length; i++) {
+      const yi = y[i];
+      const m = mu[i];
+      const v = -theta * Math.log1p(m / theta) + (yi > 0 ? yi * Math.log(m / (m + theta)) : 0);
+      s += w ? w[i] * v : v;
+    }
   }
   return s + lgammaRatioSum(table, theta) - logFactorialSum(table);
 }
@@ -87,7 +108,8 @@ export function fitNegbin(input: NegbinInput): NegbinResult {
   const pw = input.priorWeights ?? null;
   const warnings: Warning[] = [];
   const structure = input.structure ?? columnStructure(input.x, input.n, input.p);
-  const base = { x: input.x, n: input.n, p: input.p, y, offset: input.offset, priorWeights: pw, control, structure };
+  // One scratch space for the whole sequence of IRLS fits; each fit starts where the last one ended.
+  const base = { x: input.x, n: input.n, p: input.p, y, offset: input.offset, priorWeights: pw, control, structure, work: irlsWork(input.n) };
 
   // The Poisson start only needs to be close: a loose tolerance and no covariance.
   // It is finished properly when it may be the answer (no overdispersion).
@@ -95,7 +117,7 @@ export function fitNegbin(input: NegbinInput): NegbinResult {
   let fit = irls({ ...base, family: poissonFamily, control: { ...control, tolerance: Math.max(tol, START_TOLERANCE) }, covariance: false });
   let iterations = fit.iterations;
   const finishPoisson = (from: IrlsResult): IrlsResult => {
-    const f = irls({ ...base, family: poissonFamily, startBeta: from.beta });
+    const f = irls({ ...base, family: poissonFamily, startBeta: from.beta, startAt: from });
     iterations += f.iterations;
     return f;
   };
@@ -130,7 +152,7 @@ export function fitNegbin(input: NegbinInput): NegbinResult {
   if (th.boundary) return boundaryResult(fit);
   const dfRes = Math.max(1, input.n - input.p);
   const d1 = Math.sqrt(2 * dfRes);
-  let ll = negbinLogLik(y, fit.mu, th.theta, pw, table);
+  let ll = negbinLogLik(y, fit.mu, th.theta, pw, table, fit.eta);
   let llOld = ll + 2 * d1;
   let del = 1;
   let outer = 0;
@@ -142,23 +164,24 @@ export function fitNegbin(input: NegbinInput): NegbinResult {
     }
     if (control.signal?.aborted) throw new FitCancelled();
     outer++;
-    fit = irls({ ...base, family: negbinFamily(th.theta), startBeta: fit.beta, covariance: false });
+    fit = irls({ ...base, family: negbinFamily(th.theta), startBeta: fit.beta, startAt: fit, covariance: false });
     iterations += fit.iterations;
     const t0 = th.theta;
     th = thetaML(y, fit.mu, { weights: pw, start: t0, table, se: false });
     if (th.boundary || th.theta > THETA_MAX) return boundaryResult(fit);
     del = t0 - th.theta;
     llOld = ll;
-    ll = negbinLogLik(y, fit.mu, th.theta, pw, table);
+    ll = negbinLogLik(y, fit.mu, th.theta, pw, table, fit.eta);
     control.onProgress?.(Math.min(0.95, outer / maxIt), 'theta');
   }
   // As in the classical scheme, beta is from the last IRLS (at a theta that differs
   // from the final one by less than the tolerance); its covariance is taken with the
   // weights at the final theta, and SE(theta) from the information at the final means.
   const family = negbinFamily(th.theta);
-  const weights = new Float64Array(input.n);
+  // The last IRLS's weights (at the theta before) are not needed any more: overwritten with the final ones.
+  const weights = fit.weights;
   const xtwxInverse = glmCovariance(input.x, input.n, input.p, fit.eta, fit.mu, family, pw, weights, structure);
-  fit = { ...fit, xtwxInverse, weights, deviance: totalDeviance(family, y, fit.mu, pw) };
+  fit = { ...fit, xtwxInverse, weights, deviance: totalDeviance(family, y, fit.mu, pw, fit.eta) };
   // SE(theta) from the observed information of theta at the final means.
   const thetaInformation = thetaInfo(th.theta, y, fit.mu, pw, table);
   warnings.push(...fit.warnings);
@@ -173,7 +196,8 @@ export function fitNegbin(input: NegbinInput): NegbinResult {
     theta: th.theta,
     thetaSe: thetaInformation > 0 ? 1 / Math.sqrt(thetaInformation) : null,
     boundary: false,
-    logLik: negbinLogLik(y, fit.mu, th.theta, pw, table),
+    // At the same means and theta as the last alternation's.
+    logLik: ll,
     iterations,
     converged: converged && fit.converged,
     warnings,
