@@ -103,15 +103,47 @@ function numericValues(col: TableColumn, rows: readonly number[], out: Float64Ar
   return out;
 }
 
-function factorCoding(col: TableColumn, rows: readonly number[], reference: string | undefined): FactorCoding {
-  const seen = new Set<string>();
-  const blank: number[] = [];
-  for (const r of rows) {
-    const t = col.texts[r];
-    if (t === '') blank.push(r);
-    else seen.add(t);
+/**
+ * The texts of a factor column coded once per build: `codes[i]` is the
+ * position in `seen` (first-seen order) of the text in row i of the build's
+ * rows. Kept per column name for one buildDesign call (one set of rows), so
+ * that each row's text is looked up once, not once for the levels and again
+ * for the dummies.
+ */
+interface ColumnCodes {
+  readonly codes: Int32Array;
+  readonly seen: readonly string[];
+}
+type CodeCache = Map<string, ColumnCodes>;
+
+function columnCodes(col: TableColumn, rows: readonly number[], cache: CodeCache): ColumnCodes {
+  const hit = cache.get(col.name);
+  if (hit) return hit;
+  const index = new Map<string, number>();
+  const seen: string[] = [];
+  const codes = new Int32Array(rows.length);
+  const texts = col.texts;
+  for (let i = 0; i < rows.length; i++) {
+    const t = texts[rows[i]];
+    let k = index.get(t);
+    if (k === undefined) {
+      k = seen.length;
+      index.set(t, k);
+      seen.push(t);
+    }
+    codes[i] = k;
   }
-  if (blank.length) {
+  const out = { codes, seen };
+  cache.set(col.name, out);
+  return out;
+}
+
+function factorCoding(col: TableColumn, rows: readonly number[], reference: string | undefined, cache: CodeCache): FactorCoding {
+  const { codes, seen } = columnCodes(col, rows, cache);
+  const blankCode = seen.indexOf('');
+  if (blankCode >= 0) {
+    const blank: number[] = [];
+    for (let i = 0; i < rows.length; i++) if (codes[i] === blankCode) blank.push(rows[i]);
     throw new FitInputError(
       'blank-value',
       `Column "${col.name}" is blank in data row${blank.length > 1 ? 's' : ''} ${rowList(blank)}. Fill in the value or exclude the rows.`,
@@ -139,19 +171,20 @@ type ColumnStore = () => Float64Array;
 
 const freshColumns = (n: number): ColumnStore => () => new Float64Array(n);
 
-function partBlock(table: DataTable, part: PartCoding, rows: readonly number[], store: ColumnStore = freshColumns(rows.length)): Block {
+function partBlock(table: DataTable, part: PartCoding, rows: readonly number[], cache: CodeCache, store: ColumnStore = freshColumns(rows.length)): Block {
   const col = requireColumn(table, part.column);
   if (part.kind === 'numeric') return { names: [part.column], cols: [numericValues(col, rows, store())] };
   const index = new Map<string, number>();
   const nonRef = part.levels.filter((l) => l !== part.reference);
   nonRef.forEach((l, k) => index.set(l, k));
-  // The reference maps to -1: one lookup per row tells the three cases apart.
+  // The reference maps to -1: one lookup per distinct text tells the three cases apart.
   index.set(part.reference, -1);
   const cols = nonRef.map(() => store());
+  const { codes, seen } = columnCodes(col, rows, cache);
+  const target = seen.map((t) => index.get(t));
   const unknown: number[] = [];
-  const texts = col.texts;
   for (let i = 0; i < rows.length; i++) {
-    const k = index.get(texts[rows[i]]);
+    const k = target[codes[i]];
     if (k === undefined) unknown.push(rows[i]);
     else if (k >= 0) cols[k][i] = 1;
   }
@@ -165,23 +198,23 @@ function partBlock(table: DataTable, part: PartCoding, rows: readonly number[], 
   return { names: nonRef.map((l) => `${part.column}=${l}`), cols };
 }
 
-function resolvePart(table: DataTable, terms: readonly Term[], column: string, rows: readonly number[]): PartCoding {
+function resolvePart(table: DataTable, terms: readonly Term[], column: string, rows: readonly number[], cache: CodeCache): PartCoding {
   const asFactor = terms.find((t) => t.type === 'factor' && t.column === column);
-  if (asFactor && asFactor.type === 'factor') return factorCoding(requireColumn(table, column), rows, asFactor.reference);
+  if (asFactor && asFactor.type === 'factor') return factorCoding(requireColumn(table, column), rows, asFactor.reference, cache);
   const asNumeric = terms.find((t) => (t.type === 'numeric' || t.type === 'spline') && t.column === column);
   const col = requireColumn(table, column);
   if (asNumeric || col.numeric) return { kind: 'numeric', column };
-  return factorCoding(col, rows, undefined);
+  return factorCoding(col, rows, undefined, cache);
 }
 
-function codeTerm(table: DataTable, terms: readonly Term[], term: Term, rows: readonly number[]): TermCoding {
+function codeTerm(table: DataTable, terms: readonly Term[], term: Term, rows: readonly number[], cache: CodeCache): TermCoding {
   switch (term.type) {
     case 'numeric':
       return { kind: 'numeric', column: term.column };
     case 'factor':
-      return factorCoding(requireColumn(table, term.column), rows, term.reference);
+      return factorCoding(requireColumn(table, term.column), rows, term.reference, cache);
     case 'interaction':
-      return { kind: 'interaction', parts: [resolvePart(table, terms, term.columns[0], rows), resolvePart(table, terms, term.columns[1], rows)] };
+      return { kind: 'interaction', parts: [resolvePart(table, terms, term.columns[0], rows, cache), resolvePart(table, terms, term.columns[1], rows, cache)] };
     case 'spline': {
       const x = numericValues(requireColumn(table, term.column), rows);
       const set = new Set<number>();
@@ -213,14 +246,14 @@ function termWidth(coding: TermCoding): number {
   }
 }
 
-function termBlock(table: DataTable, coding: TermCoding, rows: readonly number[], store: ColumnStore): Block {
+function termBlock(table: DataTable, coding: TermCoding, rows: readonly number[], cache: CodeCache, store: ColumnStore): Block {
   switch (coding.kind) {
     case 'numeric':
     case 'factor':
-      return partBlock(table, coding, rows, store);
+      return partBlock(table, coding, rows, cache, store);
     case 'interaction': {
-      const a = partBlock(table, coding.parts[0], rows);
-      const b = partBlock(table, coding.parts[1], rows);
+      const a = partBlock(table, coding.parts[0], rows, cache);
+      const b = partBlock(table, coding.parts[1], rows, cache);
       const names: string[] = [];
       const cols: Float64Array[] = [];
       // The first part varies fastest (the customary column order, so reference fits line up).
@@ -263,7 +296,8 @@ export function buildDesign(table: DataTable, terms: readonly Term[], opts: Buil
   const warnings: Warning[] = [];
   const names: string[] = [];
   const termOf: number[] = [];
-  const levels = terms.map((term, ti) => opts.coding?.[ti] ?? codeTerm(table, terms, term, rows));
+  const cache: CodeCache = new Map();
+  const levels = terms.map((term, ti) => opts.coding?.[ti] ?? codeTerm(table, terms, term, rows, cache));
   // Every column is written in place into the design (no copies of the columns).
   const p = (opts.intercept ? 1 : 0) + levels.reduce((s, c) => s + termWidth(c), 0);
   const data = new Float64Array(n * p);
@@ -276,7 +310,7 @@ export function buildDesign(table: DataTable, terms: readonly Term[], opts: Buil
   }
   terms.forEach((term, ti) => {
     const coding = levels[ti];
-    const block = termBlock(table, coding, rows, store);
+    const block = termBlock(table, coding, rows, cache, store);
     if (block.cols.length === 0) {
       warnings.push({
         code: 'other',
