@@ -79,7 +79,7 @@ describe('models saved in the project', () => {
     const app = await openApp({ width: 1366, height: 768 });
     const { page } = app;
     try {
-      await page.getByRole('button', { name: 'Records', exact: true }).click();
+      await page.getByRole('navigation', { name: 'Work stages' }).getByRole('button', { name: 'Records' }).click();
       await page.getByRole('button', { name: 'Demo, already cleaned' }).click();
       await page.getByTestId('records-summary').filter({ hasText: 'from 15 workbooks' }).waitFor({ timeout: 60_000 });
       await page.getByRole('button', { name: 'Models' }).click();

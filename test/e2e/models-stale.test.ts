@@ -42,7 +42,7 @@ describe('models and the cleaned records', () => {
 
       // Merge one misspelt pond name in Records: its site now has an area, so the models no longer name it.
       const fixed = variants[variants.length - 1];
-      await page.getByRole('button', { name: 'Records', exact: true }).click();
+      await page.getByRole('navigation', { name: 'Work stages' }).getByRole('button', { name: 'Records' }).click();
       await (await findingFor(page, fixed)).getByRole('button', { name: `Merge into "${fixed.cleanValue}"` }).click();
       await models.click();
       text = (await problems.textContent()) ?? '';
@@ -56,7 +56,7 @@ describe('models and the cleaned records', () => {
       await expect(page.getByTestId('stale-banner').count()).resolves.toBe(0);
 
       // Undo the merge: the cleaned records change, the model is out of date until it is fitted again.
-      await page.getByRole('button', { name: 'Records', exact: true }).click();
+      await page.getByRole('navigation', { name: 'Work stages' }).getByRole('button', { name: 'Records' }).click();
       await page.getByRole('heading', { name: 'Records' }).click();
       await app.command('undo-change');
       await models.click();
