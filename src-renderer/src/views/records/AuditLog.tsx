@@ -2,20 +2,10 @@ import { useMemo, useState } from 'react';
 import type { EditEntry, EditKind, EditLog } from '@shared/cleaning/edit-entry';
 import { filterLog } from '@shared/cleaning/log-filter';
 import { VirtualList } from '../../components/VirtualList';
-import { describeEntry } from './describe-entry';
+import { describeEntry, kindWords, statusWords } from './describe-entry';
 import type { RecordSet } from './record-set';
 
 /** Every change to the records, newest first: what, where, old and new value, reason, when; each revertible. */
-const kindWords: Record<EditKind, string> = {
-  'set-value': 'Cell edits',
-  exclude: 'Left out',
-  include: 'Taken back',
-  'merge-name': 'Name merges',
-  'convert-unit': 'Unit conversions',
-  revert: 'Reverts',
-};
-
-const statusWords = { 'in-effect': 'in effect', reverted: 'reverted', undone: 'undone' } as const;
 const time = new Intl.DateTimeFormat('en-GB', { dateStyle: 'short', timeStyle: 'medium' });
 
 export function AuditLog({ log, set, height, onRevert }: { log: EditLog; set: RecordSet; height: number; onRevert(id: string): void }) {
