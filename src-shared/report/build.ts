@@ -16,8 +16,11 @@
  *                           quantile residuals of the chosen model)
  *   GroupTrend.data         dataSummary(groupTable, spec) in data-summary.ts
  *   ReportInput.cleaning    the project's EditLog as is (cleaning-summary.ts
- *                           groups it by action and reason; the whole log
+ *                           groups it by change and reason; the whole log
  *                           goes to the "Audit log" sheet)
+ *   ReportInput.cleaningRecords  { raw, cleaned, conflicts } of
+ *                           cleanedAnalysisOf: the records each change
+ *                           altered are counted (without: from the log)
  *   Provenance.project      { name, sha256 } of the project file (appendix.ts);
  *                           source files go in Provenance.inputs as before
  * groupReportParts(table, chosen, others, options) in group-parts.ts makes
@@ -29,7 +32,7 @@ import type { ModelSpec } from '../model/spec';
 import type { CompositeResult } from '../trend/composite';
 import { appendixSection, type Provenance } from './appendix';
 import { cautionsSection } from './cautions';
-import { auditLogTable, cleaningBlocks } from './cleaning-summary';
+import { auditLogTable, cleaningBlocks, type CleaningRecords } from './cleaning-summary';
 import { comparisonCells, comparisonColumns } from './comparison-section';
 import { dataSummaryCells, dataSummaryColumns } from './data-summary';
 import { compositeSection } from './composite-section';
@@ -52,6 +55,8 @@ export interface ReportInput {
   readonly provenance: Provenance;
   /** The cleaning audit log of the records behind the report. */
   readonly cleaning?: EditLog;
+  /** The imported and cleaned records behind the log, when at hand: the cleaning part then counts the records each change altered. */
+  readonly cleaningRecords?: CleaningRecords;
 }
 
 /** A section id from a group value: letters and digits only, unique within the report. */
@@ -91,7 +96,7 @@ function optionalSheets(input: ReportInput, groupHeader: string, label: (g: Grou
     const first = summarised[0].data!;
     sheets.push({ name: 'Data summary', table: { kind: 'table', id: 'sheet-data', caption: 'Sites, visits, counts and effort per season', columns: dataSummaryColumns(first, groupHeader), rows: summarised.flatMap((g) => dataSummaryCells(g.data!, label(g))) } });
   }
-  if (input.cleaning) sheets.push({ name: 'Audit log', table: auditLogTable(input.cleaning) });
+  if (input.cleaning) sheets.push({ name: 'Audit log', table: auditLogTable(input.cleaning, input.cleaningRecords) });
   return sheets;
 }
 
@@ -114,7 +119,7 @@ export function buildTrendReport(input: ReportInput): ReportDocument {
   };
   const groupSections = input.groups.map((g, i) => groupSection(g, input.spec, ids[i]));
   const sections: Section[] = [cautionsSection(input.cautions), overview];
-  if (input.cleaning) sections.push({ id: 'cleaning', heading: 'What cleaning changed', blocks: cleaningBlocks(input.cleaning), continues: true });
+  if (input.cleaning) sections.push({ id: 'cleaning', heading: 'What cleaning changed', blocks: cleaningBlocks(input.cleaning, input.cleaningRecords), continues: true });
   sections.push(...groupSections);
   if (input.composite) sections.push(compositeSection(input.composite, timeName, !input.groupColumn || input.groupColumn === 'species' ? 'species' : `values of "${input.groupColumn}"`));
   const label = (g: GroupTrend) => g.label ?? (g.group || 'all');
