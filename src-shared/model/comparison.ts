@@ -121,7 +121,9 @@ function readingOf(rows: readonly ComparisonRow[], od: readonly PairTest<LrTest>
     out.push(`Negative binomial against Poisson: LR statistic ${fmt(t.result.statistic)}, p ${fmtP(t.result.p, true)} (half the χ²(1) tail, as θ = ∞ lies on the boundary)${t.result.p < 0.05 ? ': the extra variation is real.' : ': no clear sign of extra variation.'}`);
   }
   for (const r of rows) {
-    if (r.expectedZeros !== null && r.observedZeros > 0 && r.expectedZeros < 0.8 * r.observedZeros) {
+    // A shortfall counts only when it is beyond chance too: the number of zeros is a sum of
+    // Bernoulli variables, so its SD is at most sqrt(expected) (common practice: about 2 SD).
+    if (r.expectedZeros !== null && r.observedZeros > 0 && r.expectedZeros < 0.8 * r.observedZeros && r.observedZeros - r.expectedZeros > 2 * Math.sqrt(r.expectedZeros)) {
       const d = r.model.spec.distribution;
       const alternatives = d === 'poisson' || d === 'quasipoisson' ? 'a negative binomial, zero-inflated or hurdle model' : d === 'negbin' ? 'a zero-inflated or hurdle model' : 'another zero part (more zero-part predictors)';
       out.push(`"${r.model.label}" expects ${fmt(r.expectedZeros)} zero counts where ${r.observedZeros} were seen: too few zeros; ${alternatives} may do better.`);

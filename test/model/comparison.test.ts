@@ -103,6 +103,8 @@ describe('the reading of bioChemists: Poisson against zero-inflated Poisson (psc
     const s = c.reading.find((r) => r.startsWith('"Poisson" expects'))!;
     expect(s).toContain(`zero counts where ${zeros} were seen: too few zeros; a negative binomial, zero-inflated or hurdle model may do better.`);
     expect(numberAfter(s, '"Poisson" expects ')).toBeLessThan(0.8 * zeros);
+    // and beyond chance: more than 2 sqrt(expected) short (the SD of a count of zeros is at most sqrt(expected))
+    expect(zeros - numberAfter(s, '"Poisson" expects ')).toBeGreaterThan(2 * Math.sqrt(numberAfter(s, '"Poisson" expects ')));
   });
 
   it('pairs the ZIP with the Poisson for a Vuong test that matches pscl (sign: positive favours the ZIP)', () => {
