@@ -66,8 +66,18 @@ export const distributionNames: Record<Distribution, string> = {
   'hurdle-negbin': 'Hurdle negative binomial',
 };
 
+/**
+ * The analysis table's bookkeeping columns: how many of a row's visits were
+ * at-least, approximate or present-without-a-number records (see
+ * aggregate.ts). They describe how a row was made, not the site or season,
+ * so they are kept for notes and checks, never offered as predictors. The
+ * number of visits summed (`visits`) stays a choice: with effort as the
+ * offset it can still be worth a term where visits differ in kind.
+ */
+export const bookkeepingColumns = ['at_least_records', 'approximate_records', 'present_uncounted'] as const;
+
 /** Columns that are bookkeeping or roles, never predictors. */
-const notPredictors = new Set(['count', 'site', 'season', 'species', 'log_effort', 'log_area', 'offset', 'area_ha']);
+const notPredictors = new Set<string>(['count', 'site', 'season', 'species', 'log_effort', 'log_area', 'offset', 'area_ha', ...bookkeepingColumns]);
 
 export interface PredictorColumn {
   readonly name: string;
