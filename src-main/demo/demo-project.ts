@@ -151,7 +151,7 @@ export async function demoProjectWithImports(opts: DemoProjectOptions = {}): Pro
     const { files, planted } = await writeDemoWorkbooks(dir, { seed: opts.seed });
     const imports: ImportedSourceData[] = [];
     for (const [k, file] of files.entries()) {
-      const reading = await readWorkbook(file, k === files.length - 1 ? { keepSheets: [SITE_SHEET] } : {});
+      const reading = await readWorkbook(file, { keepSheets: k === files.length - 1 ? [SITE_SHEET] : [] });
       if (!reading.data) throw new Error(`The demo workbook ${file} asks a question on import; this should not happen.`);
       imports.push(reading.data);
     }
