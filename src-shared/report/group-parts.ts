@@ -2,12 +2,13 @@
  * The optional report parts of one group in one call, from its analysis
  * table, the chosen model and the other models it was compared with:
  * { spec, comparison, diagnostics, data } to spread into a GroupTrend.
- * Each candidate is fitted once here with the engine (the trend's own fit is
- * not reused: analyseTrend keeps only its summary).
+ * Each candidate is fitted once here with the engine; the chosen model's fit
+ * may be handed in (`chosenFit`: the trend's own fit of the same table and
+ * spec) so that it is not fitted twice.
  */
 import type { DataTable } from '../data/table';
 import { fitModel } from '../engine/fit';
-import { FitCancelled, type FitControl } from '../engine/types';
+import { FitCancelled, type FitControl, type FitOutcome } from '../engine/types';
 import type { ModelSpec } from '../model/spec';
 import { comparisonDigest, type ModelComparisonDigest } from './comparison-digest';
 import { dataSummary, type DataSummary } from './data-summary';
@@ -31,6 +32,8 @@ export interface GroupPartsOptions {
   /** Seed of the residuals' uniforms (default 1). */
   readonly seed?: number;
   readonly control?: FitControl;
+  /** The chosen model already fitted to this same table with this same spec (it is not fitted again). */
+  readonly chosenFit?: FitOutcome;
 }
 
 /**
@@ -39,7 +42,7 @@ export interface GroupPartsOptions {
  * its reason added to the comparison's reading; the chosen model must fit.
  */
 export function groupReportParts(table: DataTable, chosen: LabelledSpec, others: readonly LabelledSpec[] = [], options: GroupPartsOptions = {}): GroupParts {
-  const outcome = fitModel(table, chosen.spec, options.control);
+  const outcome = options.chosenFit ?? fitModel(table, chosen.spec, options.control);
   const failed: string[] = [];
   const fitted = others.flatMap((o) => {
     try {

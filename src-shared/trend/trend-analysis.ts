@@ -40,6 +40,8 @@ export interface TrendOptions {
   runner?: FitRunner;
   onProgress?: (done: number, total: number, stage: string) => void;
   signal?: { readonly aborted: boolean };
+  /** Receives the main fit (of `spec`, or its site-robust variant with limits 'robust') and its spec, for reuse. */
+  onMainFit?: (fit: FitOutcome, spec: ModelSpec) => void;
 }
 
 export interface TrendResult {
@@ -70,6 +72,7 @@ export async function analyseTrend(table: DataTable, spec: ModelSpec, options: T
   const progress = options.onProgress ?? (() => {});
   progress(0, 1, 'fitting the model');
   const fit = fitModel(table, main, { signal: options.signal });
+  options.onMainFit?.(fit, main);
   const point = trendPoint(table, main, fit, undefined, options);
   const indices = indexRows(point.log, z);
   const slopeFit = main.time!.trend === 'annual' ? fitModel(table, linearTrendSpec(main), { signal: options.signal }) : fit;
