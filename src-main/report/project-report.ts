@@ -54,6 +54,7 @@ export async function projectPlan(doc: ProjectDocument, options: ProjectPlanOpti
     chosen: modelsOf(doc.models),
     candidates: modelsOf(doc.models, 'all'),
     cleaning: doc.cleaning,
+    cleaningRecords: analysis,
     species: options.species?.length ? options.species : doc.report.species,
     projectFile: options.projectFile,
     unsavedNote: options.unsavedNote,

@@ -10,6 +10,7 @@ import type { EditLog } from '../cleaning/edit-entry';
 import type { LoadedSource } from '../host/contract';
 import type { ModelSpec } from '../model/spec';
 import type { Provenance } from './appendix';
+import { cleaningRecordsOf, type CleaningRecords } from './cleaning-summary';
 import type { PlannedGroup, ProgrammePlan } from './programme-report';
 
 export const SPECIES_COLUMN = 'species';
@@ -118,6 +119,8 @@ export interface ProjectReportInput {
   readonly candidates?: readonly ChosenModel[];
   /** The cleaning log behind the analysis table. */
   readonly cleaning?: EditLog;
+  /** The imported and cleaned records (and the log's conflicts), when at hand: the report then counts the records each change altered. */
+  readonly cleaningRecords?: CleaningRecords;
   /** The species to report; empty: every species with a chosen model that gives a trend. */
   readonly species: readonly string[];
   /** The saved project file; null when the report is made from work not saved to a file. */
@@ -183,5 +186,6 @@ export function projectReportPlan(input: ProjectReportInput): ProgrammePlan {
     replicates: input.replicates,
     seed: input.seed,
     cleaning: input.cleaning,
+    ...(input.cleaningRecords ? { cleaningRecords: cleaningRecordsOf(input.cleaningRecords) } : {}),
   };
 }

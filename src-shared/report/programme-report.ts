@@ -9,35 +9,24 @@
  * `onProgress` gets { group, done, total, fraction, stage }: `done` groups
  * of `total` steps finished (the composite is one step more), `fraction` of
  * the current one. Cancelling (signal raised) rejects with FitCancelled.
+ * A `runner` over worker threads (poolRunner of the command line's pool)
+ * runs the groups' steps and the composite's bootstrap replicates there,
+ * all queued at once, so both cores work from the start.
  */
 import type { EditLog } from '../cleaning/edit-entry';
 import type { DataTable } from '../data/table';
 import { FitCancelled } from '../engine/types';
-import type { ModelSpec } from '../model/spec';
 import { compositeTrend, type CompositeResult } from '../trend/composite';
 import type { FitRunner } from '../trend/fit-runner';
-import { decisionFlags } from '../trend/flags';
-import { analyseTrend } from '../trend/trend-analysis';
 import type { Provenance } from './appendix';
-import { buildTrendReport } from './build';
-import { groupReportParts, type GroupParts, type LabelledSpec } from './group-parts';
+import { buildTrendReport, type ReportInput } from './build';
 import type { GroupTrend } from './group-section';
+import { groupStep, type PlannedGroup } from './group-step';
 import type { ReportDocument } from './model';
 
 export const DEFAULT_COMPOSITE_REPLICATES = 199;
 
-/** One group (species) of the report: its rows and the model chosen for it. */
-export interface PlannedGroup {
-  /** The value of the group column ("common_toad"), or '' for a single table. */
-  readonly group: string;
-  readonly label?: string;
-  readonly table: DataTable;
-  readonly spec: ModelSpec;
-  /** The chosen model's name (the comparison and diagnostics name it). */
-  readonly model?: string;
-  /** The other models of the group, compared with the chosen one on the same rows. */
-  readonly others?: readonly LabelledSpec[];
-}
+export type { PlannedGroup } from './group-step';
 
 export interface ProgrammePlan {
   readonly title: string;
@@ -59,6 +48,8 @@ export interface ProgrammePlan {
   readonly cautions?: readonly string[];
   /** The cleaning log of the records behind the tables (what cleaning changed, and the audit log sheet). */
   readonly cleaning?: EditLog;
+  /** The imported and cleaned records behind the log, when at hand (the cleaning part then counts records). */
+  readonly cleaningRecords?: ReportInput['cleaningRecords'];
 }
 
 export interface ProgrammeProgress {
@@ -93,17 +84,6 @@ export function compositeBlocker(plan: ProgrammePlan, fitted: readonly GroupTren
   return null;
 }
 
-/** The group's spec, model comparison, diagnostics and data summary (without the diagnostics, and said so, when they fail). */
-function partsOf(g: PlannedGroup, signal: ProgrammeOptions['signal'], cautions: string[]): Partial<GroupParts> & { spec: ModelSpec } {
-  try {
-    return groupReportParts(g.table, { label: g.model ?? 'The chosen model', spec: g.spec }, g.others ?? [], { control: { signal } });
-  } catch (err) {
-    if (err instanceof FitCancelled || signal?.aborted) throw new FitCancelled();
-    cautions.push(`The comparison and diagnostics of ${g.label ?? g.group} could not be made: ${(err as Error).message}`);
-    return { spec: g.spec };
-  }
-}
-
 function checkCancel(signal: ProgrammeOptions['signal']): void {
   if (signal?.aborted) throw new FitCancelled();
 }
@@ -121,56 +101,98 @@ export async function runProgrammeReport(plan: ProgrammePlan, options: Programme
   const total = plan.groups.length + (wantsComposite ? 1 : 0);
   const groups: GroupTrend[] = [];
   const cautions = [...(plan.cautions ?? [])];
-  for (const [i, g] of plan.groups.entries()) {
-    checkCancel(signal);
-    notify({ group: g.group, done: i, total, fraction: 0, stage: 'starting' });
-    const onProgress = (d: number, n: number, stage: string) => notify({ group: g.group, done: i, total, fraction: n > 0 ? d / n : 0, stage, ...(n > 1 ? { items: { done: d, total: n } } : {}) });
-    try {
-      const result = await analyseTrend(g.table, g.spec, { signal, onProgress });
-      onProgress(0, 1, g.others?.length ? 'comparison and diagnostics' : 'diagnostics');
-      groups.push({ group: g.group, label: g.label, result, flags: decisionFlags(result.slope), ...partsOf(g, signal, cautions) });
-    } catch (err) {
-      if (err instanceof FitCancelled || signal?.aborted) throw new FitCancelled();
-      groups.push({ group: g.group, label: g.label, spec: g.spec, error: (err as Error).message });
+  const stepProgress = (i: number, group: string) => (d: number, n: number, stage: string) => notify({ group, done: i, total, fraction: n > 0 ? d / n : 0, stage, ...(n > 1 ? { items: { done: d, total: n } } : {}) });
+  // With a runner that runs group steps on worker threads, every group's step is queued at once and the
+  // composite's bootstrap right behind them; progress is still told in order (the composite's held back
+  // until the groups are done). Without one, the groups run here one after another, then the composite.
+  const steps = options.runner?.groupSteps;
+  let current = 0;
+  const queued = steps ? plan.groups.map((g, i) => steps(g, { signal, onProgress: (d, n, stage) => current === i && stepProgress(i, g.group)(d, n, stage) })) : null;
+  queued?.forEach((p) => p.catch(() => {}));
+  let composite = queued && wantsComposite && !compositeBlocker(plan, []) ? startComposite(plan, options, plan.groups.length, total) : null;
+  try {
+    for (const [i, g] of plan.groups.entries()) {
+      checkCancel(signal);
+      current = i;
+      notify({ group: g.group, done: i, total, fraction: 0, stage: 'starting' });
+      const step = await (queued ? queued[i] : groupStep(g, { signal, onProgress: stepProgress(i, g.group) }));
+      groups.push(step.trend);
+      cautions.push(...step.cautions);
     }
+  } catch (err) {
+    composite?.settled.catch(() => {});
+    if (err instanceof FitCancelled || signal?.aborted) throw new FitCancelled();
+    throw err;
   }
   checkCancel(signal);
-  let composite: CompositeResult['composite'] | undefined;
   const blocker = compositeBlocker(plan, groups);
-  if (blocker) cautions.push(blocker);
-  else if (wantsComposite) {
-    const done = plan.groups.length;
-    notify({ group: COMPOSITE_STEP, done, total, fraction: 0, stage: 'starting' });
-    const first = plan.groups[0].spec;
-    try {
-      composite = (
-        await compositeTrend(plan.compositeTable!, first, plan.groupColumn!, {
-          replicates: plan.replicates ?? DEFAULT_COMPOSITE_REPLICATES,
-          seed: plan.seed ?? 1,
-          specs: Object.fromEntries(plan.groups.map((g) => [g.group, g.spec])),
-          runner: options.runner,
-          signal,
-          onProgress: (d, n, stage) => notify({ group: COMPOSITE_STEP, done, total, fraction: n > 0 ? d / n : 0, stage, ...(n > 1 ? { items: { done: d, total: n } } : {}) }),
-        })
-      ).composite;
-    } catch (err) {
-      if (err instanceof FitCancelled || signal?.aborted) throw new FitCancelled();
-      cautions.push(`There is no composite index: ${(err as Error).message}`);
-    }
+  if (blocker) {
+    composite?.settled.catch(() => {});
+    cautions.push(blocker);
   }
+  if (!blocker && wantsComposite) composite ??= startComposite(plan, options, plan.groups.length, total, true);
+  const made = composite && !blocker ? await composite.finish() : undefined;
+  if (made?.caution) cautions.push(made.caution);
+  const compositeIndex = made?.composite;
   checkCancel(signal);
   notify({ group: '', done: total, total, fraction: 1, stage: 'assembling the report' });
-  const provenance: Provenance = composite ? { ...plan.provenance, seeds: [...plan.provenance.seeds, { what: 'the composite bootstrap', value: composite.seed }] } : plan.provenance;
+  const provenance: Provenance = compositeIndex ? { ...plan.provenance, seeds: [...plan.provenance.seeds, { what: 'the composite bootstrap', value: compositeIndex.seed }] } : plan.provenance;
   const document = buildTrendReport({
     title: plan.title,
     subtitle: plan.subtitle,
     spec: plan.groups[0].spec,
     groupColumn: plan.groupColumn,
     groups,
-    composite,
+    composite: compositeIndex,
     cautions,
     provenance,
     cleaning: plan.cleaning,
+    cleaningRecords: plan.cleaningRecords,
   });
   return { document, unsound: groups.filter((g) => !g.result?.fit.converged).map((g) => g.label ?? g.group) };
+}
+
+interface StartedComposite {
+  /** Settles with the composite or its failure (never rejects but for cancelling). */
+  readonly settled: Promise<{ composite?: CompositeResult['composite']; caution?: string }>;
+  /** Releases the held-back progress, then waits for the composite. */
+  finish(): Promise<{ composite?: CompositeResult['composite']; caution?: string }>;
+}
+
+/** Starts the composite's bootstrap; its progress is held back until finish() unless `live`. */
+function startComposite(plan: ProgrammePlan, options: ProgrammeOptions, done: number, total: number, live = false): StartedComposite {
+  const { signal } = options;
+  const notify = options.onProgress ?? (() => {});
+  let held: ProgrammeProgress | null = null;
+  const wasLive = live;
+  const report = (p: ProgrammeProgress) => {
+    if (live) notify(p);
+    else held = p;
+  };
+  report({ group: COMPOSITE_STEP, done, total, fraction: 0, stage: 'starting' });
+  const settled = compositeTrend(plan.compositeTable!, plan.groups[0].spec, plan.groupColumn!, {
+    replicates: plan.replicates ?? DEFAULT_COMPOSITE_REPLICATES,
+    seed: plan.seed ?? 1,
+    specs: Object.fromEntries(plan.groups.map((g) => [g.group, g.spec])),
+    runner: options.runner,
+    signal,
+    onProgress: (d, n, stage) => report({ group: COMPOSITE_STEP, done, total, fraction: n > 0 ? d / n : 0, stage, ...(n > 1 ? { items: { done: d, total: n } } : {}) }),
+  }).then(
+    (r) => ({ composite: r.composite }),
+    (err) => {
+      if (err instanceof FitCancelled || signal?.aborted) throw new FitCancelled();
+      return { caution: `There is no composite index: ${(err as Error).message}` };
+    },
+  );
+  return {
+    settled,
+    finish() {
+      if (!wasLive) {
+        live = true;
+        notify({ group: COMPOSITE_STEP, done, total, fraction: 0, stage: 'starting' });
+        if (held && held.stage !== 'starting') notify(held);
+      }
+      return settled;
+    },
+  };
 }

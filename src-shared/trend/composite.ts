@@ -10,39 +10,21 @@
  * indicators for European birds. Phil. Trans. R. Soc. B 360:269-288.
  */
 import type { DataTable } from '../data/table';
-import { splitBy } from '../data/table';
 import { createRng } from '../demo/prng';
 import { FitCancelled } from '../engine/types';
 import type { ModelSpec } from '../model/spec';
+import { compositeLog } from './composite-log';
+import { groupFits, inThreadReplicates, replicatesOverFits, type ReplicateJob } from './composite-replicate';
 import { TrendError } from './errors';
 import { checkFinite } from './finite-check';
-import { inThreadRunner, type FitJob, type FitRunner } from './fit-runner';
-import { annualLogIndices, indexRows, type LogIndices } from './indices';
+import { inThreadRunner, type FitRunner } from './fit-runner';
+import { annualLogIndices, indexRows } from './indices';
 import type { IndexRow } from './interval';
 import { percentileLimits } from './percentile';
-import { resampleSites, rowsBySite } from './resample-sites';
+import { drawSites, rowsBySite } from './resample-sites';
 import { annualTrendSpec } from './trend-specs';
 
-/** Weighted mean of log indices over species that share the seasons; weights default to 1. */
-export function compositeLog(species: readonly { key: string; log: LogIndices }[], weights: Readonly<Record<string, number>> = {}): Float64Array {
-  if (species.length === 0) throw new TrendError('no-species', 'A composite index needs at least one species.');
-  const levels = species[0].log.time.levels;
-  const out = new Float64Array(levels.length);
-  let total = 0;
-  for (const s of species) {
-    const w = weights[s.key] ?? 1;
-    if (!(w >= 0 && Number.isFinite(w))) throw new TrendError('bad-weight', `The weight of "${s.key}" must be a number of at least 0, not ${w}.`);
-    total += w;
-    levels.forEach((l, i) => {
-      const j = s.log.time.levels.indexOf(l);
-      if (j < 0) throw new TrendError('species-missing-season', `The species "${s.key}" has no rows in season ${l}, so it cannot enter a composite over that season. Leave the species out or restrict the seasons.`);
-      out[i] += w * s.log.log[j];
-    });
-  }
-  if (!(total > 0)) throw new TrendError('bad-weight', 'The species weights add up to 0; give at least one species a positive weight.');
-  for (let i = 0; i < out.length; i++) out[i] /= total;
-  return out;
-}
+export { compositeLog } from './composite-log';
 
 export interface CompositeOptions {
   base?: number | string;
@@ -59,11 +41,6 @@ export interface CompositeOptions {
 export interface CompositeResult {
   species: { group: string; indices: IndexRow[] }[];
   composite: { indices: IndexRow[]; weights: Record<string, number>; replicates: number; failedReplicates: number; seed: number; method: string };
-}
-
-function groupFits(table: DataTable, by: string, specOf: (key: string) => ModelSpec): { keys: string[]; jobs: FitJob[]; tables: DataTable[] } {
-  const groups = splitBy(table, by).filter((g) => g.key !== '');
-  return { keys: groups.map((g) => g.key), tables: groups.map((g) => g.table), jobs: groups.map((g) => ({ table: g.table, spec: specOf(g.key) })) };
 }
 
 export async function compositeTrend(table: DataTable, spec: ModelSpec, by: string, options: CompositeOptions = {}): Promise<CompositeResult> {
@@ -91,33 +68,19 @@ export async function compositeTrend(table: DataTable, spec: ModelSpec, by: stri
   const comp = compositeLog(species, weights);
   const rng = createRng(options.seed ?? 1);
   const groups = rowsBySite(table, site);
-  const jobs: FitJob[] = [];
-  const reps: { keys: string[]; tables: DataTable[] }[] = [];
+  const levels = species[0].log.time.levels;
+  const jobs: ReplicateJob[] = [];
   for (let r = 0; r < R; r++) {
-    const g = groupFits(resampleSites(table, site, groups, rng), by, annual);
-    reps.push(g);
-    jobs.push(...g.jobs);
+    jobs.push({ table, site, by, groups, picks: drawSites(groups, rng), specs: own, common, species: point.keys.length, weights, base, levels });
   }
-  const done = await runner(jobs, { signal: options.signal, onDone: (d, n) => progress(d, n, 'bootstrap refits') });
+  const replicates = runner.replicates ?? (options.runner ? replicatesOverFits(runner) : inThreadReplicates);
+  const done = await replicates(jobs, { signal: options.signal, onDone: (d, n) => progress(d, n, 'bootstrap refits') });
   if (options.signal?.aborted) throw new FitCancelled();
-  const L = comp.length;
-  const draws: number[][] = Array.from({ length: L }, () => []);
+  const draws: number[][] = levels.map(() => []);
   let failed = 0;
-  let at = 0;
-  for (const rep of reps) {
-    const results = done.slice(at, at + rep.keys.length);
-    at += rep.keys.length;
-    try {
-      if (rep.keys.length !== point.keys.length) throw new Error('a species is missing');
-      const sp = results.map((f, i) => {
-        if (!f.ok || !f.outcome.summary.converged) throw new Error('not fitted');
-        return { key: rep.keys[i], log: annualLogIndices(rep.tables[i], annual(rep.keys[i]), f.outcome, base) };
-      });
-      const c = compositeLog(sp, weights);
-      species[0].log.time.levels.forEach((l, i) => draws[i].push(c[sp[0].log.time.levels.indexOf(l)]));
-    } catch {
-      failed++;
-    }
+  for (const rep of done) {
+    if (rep.ok) rep.values.forEach((v, i) => draws[i].push(v));
+    else failed++;
   }
   if (R - failed < 20) throw new TrendError('bootstrap-failed', `Only ${R - failed} of ${R} bootstrap replicates could be fitted for every species, too few for limits.`);
   const rows = species[0].log.time.levels.map((l, i): IndexRow => {

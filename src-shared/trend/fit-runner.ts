@@ -8,6 +8,8 @@ import type { DataTable } from '../data/table';
 import { fitModel } from '../engine/fit';
 import { FitCancelled, type FitOutcome } from '../engine/types';
 import type { ModelSpec } from '../model/spec';
+import type { GroupStepRunner } from '../report/group-step';
+import type { ReplicateRunner } from './composite-replicate';
 
 export interface FitJob {
   readonly table: DataTable;
@@ -22,7 +24,14 @@ export interface RunOptions {
   signal?: { readonly aborted: boolean };
 }
 
-export type FitRunner = (jobs: readonly FitJob[], options?: RunOptions) => Promise<JobResult[]>;
+/**
+ * Where given, `replicates` runs whole composite bootstrap replicates (resampling and fits) and
+ * `groupSteps` whole report group steps where the fits run (a worker pool), so little crosses over.
+ */
+export type FitRunner = ((jobs: readonly FitJob[], options?: RunOptions) => Promise<JobResult[]>) & {
+  readonly replicates?: ReplicateRunner;
+  readonly groupSteps?: GroupStepRunner;
+};
 
 /** Runs the jobs one after another in this thread; throws FitCancelled when the signal is raised. */
 export const inThreadRunner: FitRunner = async (jobs, options = {}) => {

@@ -24,11 +24,21 @@ export function rowsBySite(table: DataTable, siteColumn: string): { sites: strin
   return { sites, rows: sites.map((s) => map.get(s)!) };
 }
 
-/** One resampled table; `groups` from rowsBySite (computed once for many replicates). */
-export function resampleSites(table: DataTable, siteColumn: string, groups: { sites: string[]; rows: number[][] }, rng: Rng): DataTable {
+/** The sites of one replicate: as many draws as there are sites, with replacement (indices into `groups.sites`). */
+export function drawSites(groups: { sites: string[] }, rng: Rng): number[] {
   const m = groups.sites.length;
   const picks: number[] = [];
   for (let k = 0; k < m; k++) picks.push(Math.min(m - 1, Math.floor(rng.uniform() * m)));
+  return picks;
+}
+
+/** One resampled table; `groups` from rowsBySite (computed once for many replicates). */
+export function resampleSites(table: DataTable, siteColumn: string, groups: { sites: string[]; rows: number[][] }, rng: Rng): DataTable {
+  return tableOfSites(table, siteColumn, groups, drawSites(groups, rng));
+}
+
+/** The table of the drawn sites (`picks` from drawSites), each draw a site of its own. */
+export function tableOfSites(table: DataTable, siteColumn: string, groups: { sites: string[]; rows: number[][] }, picks: readonly number[]): DataTable {
   const rows: number[] = [];
   const labels: string[] = [];
   picks.forEach((s, k) => {

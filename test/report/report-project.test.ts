@@ -180,7 +180,7 @@ describe('the app and the command line give the same numbers for the same projec
     const forReport = Object.fromEntries(chosen.map((m) => [m.species, modelId(m.species, m.spec)]));
     const choices = reportChoices(input.analysis.table, fitted, forReport, input.dataKey);
     expect(choices.choices.every((c) => c.problem === null)).toBe(true);
-    const app = projectReportPlan({ ...common, programme: doc.programme.name, table: input.analysis.table, chosen: choices.chosen, candidates: choices.candidates, cleaning: doc.cleaning, species: doc.report.species, sources: sourceInputs(loaded) });
+    const app = projectReportPlan({ ...common, programme: doc.programme.name, table: input.analysis.table, chosen: choices.chosen, candidates: choices.candidates, cleaning: doc.cleaning, cleaningRecords: input, species: doc.report.species, sources: sourceInputs(loaded) });
     // A model fitted before the cleaned records changed is out of date: the Report stage leaves its species out and says why.
     const stale = reportChoices(input.analysis.table, fitted.map((f) => (f.species === species[0] ? { ...f, dataKey: 'older' } : f)), forReport, input.dataKey);
     expect(stale.chosen.map((m) => m.species)).not.toContain(species[0]);

@@ -1,9 +1,10 @@
 import { existsSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { fileURLToPath } from 'node:url';
-import { fitMethods, type FitMethods } from '@shared/worker/fit-methods';
+import { servesReplicates } from '@shared/trend/pool-runner';
 import { localWorker } from '@shared/worker/local-worker';
 import { defaultPoolSize, WorkerPool } from '@shared/worker/pool';
+import { reportFitMethods, type ReportFitMethods } from '@shared/report/fit-worker-methods';
 import { nodeWorker } from './node-worker';
 
 /** Where the built worker is: beside the bundle, or (running from source) in the repository's build output. */
@@ -23,7 +24,7 @@ export function defaultJobs(): number {
 }
 
 export interface FitPool {
-  pool: WorkerPool<FitMethods>;
+  pool: WorkerPool<ReportFitMethods>;
   /** 'threads' with worker threads, 'in-process' when the fits run in this thread one at a time. */
   mode: 'threads' | 'in-process';
 }
@@ -31,6 +32,6 @@ export interface FitPool {
 /** A pool of `jobs` fit worker threads; `jobs` 0, or no built worker, fits in this thread. */
 export function createFitPool(jobs: number): FitPool {
   const file = jobs > 0 ? fitWorkerFile() : null;
-  if (file) return { pool: new WorkerPool<FitMethods>(() => nodeWorker(file), { size: jobs }), mode: 'threads' };
-  return { pool: new WorkerPool<FitMethods>(() => localWorker(fitMethods), { size: 1 }), mode: 'in-process' };
+  if (file) return { pool: servesReplicates(new WorkerPool<ReportFitMethods>(() => nodeWorker(file), { size: jobs })), mode: 'threads' };
+  return { pool: servesReplicates(new WorkerPool<ReportFitMethods>(() => localWorker(reportFitMethods), { size: 1 })), mode: 'in-process' };
 }

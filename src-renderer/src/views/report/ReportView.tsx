@@ -78,6 +78,7 @@ export function ReportView({ controls, models, run, version, onSettings }: Props
         chosen,
         candidates,
         cleaning: project.document.cleaning,
+        ...(input ? { cleaningRecords: input } : {}),
         species,
         projectFile,
         sources: sourceInputs(project.sources),
