@@ -1,5 +1,27 @@
 import type { CallContext } from '@shared/worker/port';
+import type { ReportFitMethods } from '@shared/report/fit-worker-methods';
 import { buildProgrammeReport, type ProgrammePlan, type ProgrammeProgress } from '@shared/report/programme-report';
+import { poolRunner, servesReplicates } from '@shared/trend/pool-runner';
+import { defaultPoolSize, WorkerPool } from '@shared/worker/pool';
+import { webWorker } from './web-worker';
+
+/**
+ * The report worker's own fit workers (one per core: the page waits on the
+ * report, which shows its progress), made on first use; none where this
+ * scope cannot start workers (the report then runs in this worker alone).
+ * They end with the report worker (cancelling a report stops it).
+ */
+let fitPool: WorkerPool<ReportFitMethods> | null = null;
+
+function reportFitPool(): WorkerPool<ReportFitMethods> | null {
+  if (typeof Worker === 'undefined') return null;
+  fitPool ??= servesReplicates(
+    new WorkerPool<ReportFitMethods>(() => webWorker(new Worker(new URL('./report-fit.worker.ts', import.meta.url), { type: 'module', name: 'tallywise-report-fit' })), {
+      size: defaultPoolSize(navigator.hardwareConcurrency || 2, 0),
+    }),
+  );
+  return fitPool;
+}
 
 /**
  * What the report worker serves: the whole programme's report run. Progress
@@ -7,11 +29,14 @@ import { buildProgrammeReport, type ProgrammePlan, type ProgrammeProgress } from
  * the full progress record as JSON in the stage (see readProgress).
  */
 export const reportMethods = {
-  report: ([plan]: readonly [ProgrammePlan], ctx: CallContext) =>
-    buildProgrammeReport(plan, {
+  report: ([plan]: readonly [ProgrammePlan], ctx: CallContext) => {
+    const pool = reportFitPool();
+    return buildProgrammeReport(plan, {
       signal: ctx.signal,
+      runner: pool ? poolRunner(pool) : undefined,
       onProgress: (p) => ctx.onProgress(Math.min(1, (p.done + p.fraction) / Math.max(1, p.total)), JSON.stringify(p)),
-    }),
+    });
+  },
 };
 
 export type ReportMethods = typeof reportMethods;
