@@ -5,6 +5,7 @@ import type { ImportedTable } from '../../src-shared/import/imported-table';
 import { tableFromGrids } from '../../src-shared/import/table-from-grids';
 import type { DateOrder } from '../../src-shared/import/text-dates';
 import { readCsv } from './csv-reader';
+import { stopIfCancelled } from './import-cancelled';
 import type { EncodingName } from './text-encoding';
 import { openPackage, sheetBytes, type WorkbookInfo } from './xlsx-package';
 import { readSheet } from './xlsx-sheet';
@@ -21,8 +22,17 @@ export interface ImportOptions {
   readonly dateOrder?: DateOrder;
   readonly decimalMark?: '.' | ',';
   readonly encoding?: EncodingName;
-  readonly onProgress?: (fraction: number, stage: string) => void;
+  /** Fraction of the file read (0 to 1), a stage sentence, and where: the sheet (1-based of how many) and the spreadsheet row reached. */
+  readonly onProgress?: (fraction: number, stage: string, at?: ReadPlace) => void;
+  /** Checked between chunks and sheets; when aborted, the read rejects with ImportCancelled. */
   readonly signal?: AbortSignal;
+}
+
+export interface ReadPlace {
+  readonly sheet: string;
+  readonly sheetIndex: number;
+  readonly sheetCount: number;
+  readonly rows: number;
 }
 
 export interface SheetSummary {
@@ -81,8 +91,10 @@ export async function readWorkbookGrids(bytes: Uint8Array, file: string, options
   const entries = pickSheets(info, file, options);
   const grids: SheetGrid[] = [];
   for (let i = 0; i < entries.length; i++) {
+    stopIfCancelled(options.signal, file, { sheet: entries[i].name });
     const data = sheetBytes(bytes, file, entries[i]);
-    const onProgress = options.onProgress && ((f: number, stage: string) => options.onProgress!((i + f) / entries.length, stage));
+    const at = { sheet: entries[i].name, sheetIndex: i + 1, sheetCount: entries.length };
+    const onProgress = options.onProgress && ((f: number, stage: string, rows: number) => options.onProgress!((i + f) / entries.length, stage, { ...at, rows }));
     grids.push(await readSheet(data, file, entries[i], info, { onProgress, signal: options.signal }));
   }
   return { grids, info };
@@ -92,7 +104,7 @@ export async function readWorkbookGrids(bytes: Uint8Array, file: string, options
 export async function readGrids(file: string, options: ImportOptions = {}): Promise<{ grids: SheetGrid[]; source: ImportedTable['source'] }> {
   const kind = fileKind(file);
   const bytes = await readBytes(file);
-  if (options.signal?.aborted) throw new ImportError('cancelled', `Reading ${file} was cancelled.`, { file });
+  stopIfCancelled(options.signal, file);
   if (kind === 'csv') {
     options.onProgress?.(0, 'reading text');
     const csv = readCsv(bytes, file, { decimalMark: options.decimalMark, encoding: options.encoding });
@@ -106,6 +118,6 @@ export async function readGrids(file: string, options: ImportOptions = {}): Prom
 /** A file in, its table out: header found, blank rows and notes set aside, questions asked. */
 export async function importFile(file: string, options: ImportOptions = {}): Promise<ImportedTable> {
   const { grids, source } = await readGrids(file, options);
-  if (options.signal?.aborted) throw new ImportError('cancelled', `Reading ${file} was cancelled.`, { file });
+  stopIfCancelled(options.signal, file);
   return tableFromGrids(grids, source, { dateOrder: options.dateOrder });
 }

@@ -1,6 +1,8 @@
 import { CellKind, GridBuilder, type CellKindCode, type SheetGrid } from '../../src-shared/import/cells';
 import { serialToIso } from '../../src-shared/import/excel-dates';
 import { ImportError } from '../../src-shared/import/import-error';
+import { stopIfCancelled } from './import-cancelled';
+import { nextTurn } from './next-turn';
 import type { WorkbookInfo, SheetEntry } from './xlsx-package';
 import { unescapeXml } from './xml-text';
 
@@ -17,7 +19,9 @@ import { unescapeXml } from './xml-text';
  * be filled across.
  */
 export interface SheetReadControl {
-  onProgress?: (fraction: number, stage: string) => void;
+  /** Called after each chunk of the part: the fraction of its bytes read, a stage sentence, the spreadsheet row reached. */
+  onProgress?: (fraction: number, stage: string, rows: number) => void;
+  /** Checked before each chunk; when aborted, the read rejects with ImportCancelled. */
   signal?: AbortSignal;
 }
 
@@ -28,7 +32,7 @@ const QUOTE = 34;
 const APOS = 39;
 const EQ = 61;
 const COLON = 58;
-const stepBytes = 4 << 20;
+const stepBytes = 1 << 20;
 const Tag = { other: 0, c: 1, v: 2, t: 3, is: 4, row: 5, rPh: 6, sheetData: 7, mergeCell: 8 } as const;
 
 class SheetScanner {
@@ -413,11 +417,11 @@ export async function readSheet(bytes: Uint8Array, file: string, entry: SheetEnt
     let limit = 0;
     let more = true;
     while (more) {
-      if (control.signal?.aborted) throw new ImportError('cancelled', `Reading ${file} was cancelled.`, { file, sheet: entry.name });
+      stopIfCancelled(control.signal, file, { sheet: entry.name });
       limit = Math.min(bytes.length, limit + stepBytes);
       more = scanner.step(limit);
-      control.onProgress?.(Math.min(1, scanner.pos / bytes.length), `reading sheet "${entry.name}"`);
-      if (more && (control.signal || control.onProgress)) await new Promise((r) => setImmediate(r));
+      control.onProgress?.(Math.min(1, scanner.pos / bytes.length), `reading sheet "${entry.name}"`, scanner.row);
+      if (more && (control.signal || control.onProgress)) await nextTurn();
     }
     if (!scanner.complete) throw new Error('the sheet ends before its data is closed; the file is cut short');
   } catch (e) {
