@@ -1,3 +1,5 @@
+import type { JobProgress } from '@shared/host/contract';
+
 /**
  * What the services need from the desktop shell. Electron supplies real
  * dialogs and a file manager; the browser tests and the command line supply
@@ -25,4 +27,6 @@ export interface HostEnvironment {
   userDataDir: string;
   dialogs: DialogPort;
   shell: ShellPort;
+  /** Sends a long job's progress to the page (absent where nobody listens). */
+  progress?: (event: JobProgress) => void;
 }

@@ -76,6 +76,14 @@ export class ProjectSession {
     return this.kept.get(sourceId)?.stored.sheets.find((g) => g.name === sheet) ?? null;
   }
 
+  /** The sheets kept of a source the session holds, marked where the records come from; none for an unknown source. */
+  sourceSheets(sourceId: string): { name: string; rows: number; columns: number; records: boolean }[] {
+    const k = this.kept.get(sourceId);
+    if (!k) return [];
+    const recordSheets = k.mapping.recordSheets;
+    return k.stored.sheets.map((g) => ({ name: g.name, rows: g.rows, columns: g.columns, records: recordSheets ? recordSheets.includes(g.name) : true }));
+  }
+
   private untitledRecovery(): string {
     return untitledRecoveryPath(this.userDataDir);
   }

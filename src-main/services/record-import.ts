@@ -1,6 +1,6 @@
 import { createHash } from 'node:crypto';
 import { basename } from 'node:path';
-import { readBytes, readGrids } from '../import/import-file';
+import { listSheets, readBytes, readGrids } from '../import/import-file';
 import type { SheetGrid as ReadGrid } from '@shared/import/cells';
 import type { ImportedTable, SourceInfo } from '@shared/import/imported-table';
 import { tableFromGrids } from '@shared/import/table-from-grids';
@@ -16,6 +16,9 @@ import { planRoles, type RolePlan } from './column-roles';
 import { toPageFindings } from './record-checks';
 import { recordsToColumns } from './record-wire';
 import { readStoredGrid, storeGrid } from './source-cells';
+import { importReporter, type ImportProgress } from './import-progress';
+import { stopIfCancelled } from '../import/import-cancelled';
+import { nextTurn } from '../import/next-turn';
 
 /**
  * The import service behind `import:read-workbook`: a workbook in, its
@@ -79,16 +82,38 @@ function loadedFrom(table: ImportedTable, plan: RolePlan, dateOrder: DateOrder, 
   };
 }
 
+/** The workbook's sheets other than the records' one (the named sheet, else the first visible), so a site list can be linked later. */
+async function otherSheets(path: string, recordSheet: string | undefined): Promise<string[]> {
+  const sheets = await listSheets(path);
+  const records = recordSheet ?? (sheets.find((s) => !s.hidden) ?? sheets[0])?.name;
+  return sheets.map((s) => s.name).filter((n) => n !== '' && n !== records);
+}
+
 /**
  * `keepSheets` names further sheets whose cells the project keeps beside the
- * records' sheet (a list of sites with their areas), not read as records.
+ * records' sheet (a list of sites with their areas), not read as records;
+ * by default every other sheet of the workbook is kept.
  */
-export async function readWorkbook(path: string, opts: { sheet?: string; dateOrder?: DateOrder; roles?: ColumnRoles; keepSheets?: readonly string[] } = {}): Promise<WorkbookReading> {
+export async function readWorkbook(
+  path: string,
+  opts: { sheet?: string; dateOrder?: DateOrder; roles?: ColumnRoles; keepSheets?: readonly string[]; onProgress?: (progress: ImportProgress) => void; signal?: AbortSignal } = {},
+): Promise<WorkbookReading> {
   const fileName = basename(path);
+  const { signal } = opts;
+  const keepSheets = opts.keepSheets ?? (await otherSheets(path, opts.sheet));
+  const report = importReporter(opts.onProgress, keepSheets.length);
+  /** Between stages: say the next stage has begun, let a cancel arrive, and stop if it did. */
+  const checkpoint = async (stage: ImportProgress['stage']) => {
+    report.stage(stage);
+    await nextTurn();
+    stopIfCancelled(signal, fileName);
+  };
+  report.stage('reading-file');
   const bytes = await readBytes(path);
-  const { grids, source } = await readGrids(path, { sheet: opts.sheet });
-  const kept = opts.keepSheets?.length ? (await readGrids(path, { sheets: opts.keepSheets })).grids.filter((g) => !grids.some((r) => r.sheet === g.sheet)) : [];
+  const { grids, source } = await readGrids(path, { sheet: opts.sheet, signal, onProgress: report.records });
+  const kept = keepSheets.length ? (await readGrids(path, { sheets: keepSheets, signal, onProgress: report.kept })).grids.filter((g) => !grids.some((r) => r.sheet === g.sheet)) : [];
   const named: ReadGrid[] = grids.map((g) => ({ ...g, file: fileName }));
+  await checkpoint('checking');
   const first = tableFromGrids(named, source, { dateOrder: opts.dateOrder ?? 'dmy' });
   const headers = first.columns.map((c) => c.name);
   let plan: RolePlan;
@@ -106,16 +131,22 @@ export async function readWorkbook(path: string, opts: { sheet?: string; dateOrd
   const meta = { id: sha256.slice(0, 12), fileName, size: bytes.length, sha256, importedAt: new Date().toISOString() };
   const order = dateOrder ?? 'dmy';
   const table = order === 'dmy' ? first : tableFromGrids(named, source, { dateOrder: order });
+  await checkpoint('building');
+  const loaded = loadedFrom(table, plan, order, meta);
+  const stored = { ...meta, sheets: [...grids, ...kept].map(storeGrid) };
+  // The last chance to stop: after this the records are handed over whole.
+  await checkpoint('done');
   return {
     data: {
-      loaded: loadedFrom(table, plan, order, meta),
-      stored: { ...meta, sheets: [...grids, ...kept].map(storeGrid) },
+      loaded,
+      stored,
       mapping: { sourceId: meta.id, roles: plan.roles, mappedBy: plan.mappedBy, dateOrder: order, source, ...(kept.length ? { recordSheets: grids.map((g) => g.sheet) } : {}) },
     },
     questions: [],
     headers,
     rolesNeeded: null,
   };
+
 }
 
 /** Redoes a source's import from the cells the project kept. */

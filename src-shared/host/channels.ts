@@ -15,6 +15,7 @@ export const channelNames = [
   'file:fingerprint',
   'import:list-sheets',
   'import:read-workbook',
+  'import:cancel',
   'project:new-from-demo',
   'project:open',
   'project:save',
@@ -22,6 +23,7 @@ export const channelNames = [
   'project:check-recovery',
   'project:discard-recovery',
   'project:sheet-cells',
+  'project:source-sheets',
   'report:write',
 ] as const;
 export type ChannelName = (typeof channelNames)[number];
@@ -35,3 +37,9 @@ export const bridgeGlobal = 'tallywiseHost';
 
 /** The IPC channel that carries host commands to the page. */
 export const commandChannel = 'host:command';
+
+/** The IPC channel that carries a long job's progress (an import) to the page; each event names its job. */
+export const progressChannel = 'host:progress';
+
+/** The stable name of the error a cancelled import rejects with. */
+export const importCancelledName = 'ImportCancelled';

@@ -6,7 +6,7 @@ import { sheetGridSchema } from '../project/sheet-grid';
 import { effortUnits } from '../import/units';
 import type { ReportDocument } from '../report/model';
 
-export { bridgeGlobal, commandChannel, hostCommands, type HostCommand } from './channels';
+export { bridgeGlobal, commandChannel, hostCommands, importCancelledName, progressChannel, type HostCommand } from './channels';
 
 /**
  * The host contract: every call the renderer can make of the main process,
@@ -175,6 +175,29 @@ export const recoveryOfferSchema = z.object({
 });
 export type RecoveryOffer = z.infer<typeof recoveryOfferSchema>;
 
+/** A long job's name, chosen by the page, so that its progress events and its cancel find it. */
+const jobId = z.string().regex(/^[\w.:-]{1,64}$/, 'a job id of 1 to 64 letters, digits, dots, colons or dashes');
+
+/** The stages of an import, in the order they come. */
+export const importStages = ['reading-file', 'reading-sheet', 'checking', 'building', 'done'] as const;
+export type ImportStage = (typeof importStages)[number];
+
+/**
+ * How far a job has come, as main sends it on `progressChannel`: the stage,
+ * the fraction of the whole job done (0 to 1), and for a sheet being read
+ * which one of how many and the rows read so far.
+ */
+export interface JobProgress {
+  jobId: string;
+  stage: ImportStage;
+  fraction: number;
+  sheet?: string;
+  /** 1-based. */
+  sheetIndex?: number;
+  sheetCount?: number;
+  rowsRead?: number;
+}
+
 const projectPathOrNone = z.object({ path: filePath.nullable() }).strict();
 
 /** A report document as it crosses the bridge: its outline is checked here, its content by the renderers. */
@@ -211,7 +234,7 @@ export const hostContract = {
   },
   'import:read-workbook': {
     input: z
-      .object({ path: filePath, sheet: z.string().min(1).optional(), dateOrder: z.enum(['dmy', 'mdy']).optional(), roles: columnRolesSchema.optional() })
+      .object({ path: filePath, sheet: z.string().min(1).optional(), dateOrder: z.enum(['dmy', 'mdy']).optional(), roles: columnRolesSchema.optional(), jobId: jobId.optional() })
       .strict(),
     /**
      * `source` is null when something must be answered first, then asked again
@@ -225,6 +248,12 @@ export const hostContract = {
       rolesNeeded: z.string().nullable(),
     }),
   },
+  /**
+   * Stops the import running under `jobId`: its call rejects with
+   * `importCancelledName` and nothing of it is kept. `cancelled` is false when
+   * no such import is running (it had already ended).
+   */
+  'import:cancel': { input: z.object({ jobId }).strict(), output: z.object({ cancelled: z.boolean() }) },
   /** `recorded`: with the demo's recorded cleaning and chosen models (src-main/demo/demo-project.ts). */
   'project:new-from-demo': { input: z.object({ recorded: z.boolean().optional() }).strict(), output: openedProjectSchema },
   'project:open': { input: z.object({ path: filePath, fromRecovery: z.boolean().optional() }).strict(), output: openedProjectSchema },
@@ -240,6 +269,11 @@ export const hostContract = {
   'project:discard-recovery': { input: projectPathOrNone, output: z.object({ ok: z.boolean() }) },
   /** The stored cells of one sheet of a source in the project (the site list the project links), or null when not held. */
   'project:sheet-cells': { input: z.object({ sourceId: z.string().min(1), sheet: z.string().min(1) }).strict(), output: z.object({ grid: sheetGridSchema.nullable() }) },
+  /** The sheets the project keeps of a source, each with its size and whether the records were read from it (the others can be linked as the site list). */
+  'project:source-sheets': {
+    input: z.object({ sourceId: z.string().min(1) }).strict(),
+    output: z.object({ sheets: z.array(z.object({ name: z.string(), rows: z.number().int(), columns: z.number().int(), records: z.boolean() })) }),
+  },
   /** Writes a report document as one PDF, one HTML and one XLSX file named `stem` into `folder`. */
   'report:write': {
     input: z.object({ document: reportDocumentSchema, folder: filePath, stem: reportStem }).strict(),
@@ -283,4 +317,4 @@ export type HostServices = { [C in Channel]: (input: z.output<HostContract[C]['i
 /** The object preload exposes (and the browser tests install): one function per channel. */
 export type HostBridge = {
   [C in Channel]: (input: ChannelInput<C>) => Promise<HostReply<ChannelOutput<C>>>;
-} & { onCommand(listener: (command: HostCommand) => void): () => void };
+} & { onCommand(listener: (command: HostCommand) => void): () => void; onProgress(listener: (progress: JobProgress) => void): () => void };
