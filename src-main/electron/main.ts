@@ -1,6 +1,6 @@
 import { app, BrowserWindow, dialog } from 'electron';
 import { createHostServices } from '../services/host-services';
-import { commandChannel, type HostCommand } from '@shared/host/channels';
+import { commandChannel, progressChannel, type HostCommand } from '@shared/host/channels';
 import { registerHostHandlers } from './ipc';
 import { installMenu } from './menu';
 import { createMainWindow, openWithSystem, revealInFileManager } from './window';
@@ -36,6 +36,9 @@ void app.whenReady().then(() => {
       },
     },
     shell: { reveal: revealInFileManager, open: openWithSystem },
+    progress: (event) => {
+      if (win && !win.isDestroyed()) win.webContents.send(progressChannel, event);
+    },
   });
   registerHostHandlers(services);
   win = createMainWindow();

@@ -2,7 +2,7 @@ import { existsSync, mkdirSync, mkdtempSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
-import { bridgeGlobal, channels, type HostCommand } from '@shared/host/contract';
+import { bridgeGlobal, channels, type HostCommand, type JobProgress } from '@shared/host/contract';
 import { dispatchHostCall } from '@shared/host/dispatch';
 import { createHostServices } from '../../src-main/services/host-services';
 import type { DialogPort, HostEnvironment } from '../../src-main/services/ports';
@@ -73,6 +73,9 @@ export async function openApp(opts: { width?: number; height?: number; scale?: n
   const server = await serveFolder(rendererDir);
   const dialogs = new ScriptedDialogs();
   const userDataDir = mkdtempSync(join(tmpdir(), 'tallywise-e2e-'));
+  // Jobs' progress goes to the page as Electron's webContents.send would carry it (once the page exists).
+  let page: Page | null = null;
+  const progress = (event: JobProgress) => void page?.evaluate((e) => (window as unknown as { __tallywiseProgress(e: unknown): void }).__tallywiseProgress(e), event).catch(() => undefined);
   const services = createHostServices({
     appName: 'Tallywise',
     appVersion: '0.0.0-test',
@@ -80,11 +83,12 @@ export async function openApp(opts: { width?: number; height?: number; scale?: n
     userDataDir,
     dialogs,
     shell: { reveal: async () => true },
+    progress,
     ...opts.env,
   });
   const b = await sharedBrowser();
   const context: BrowserContext = await b.newContext({ viewport: { width: opts.width ?? 1366, height: opts.height ?? 768 }, deviceScaleFactor: opts.scale ?? 1 });
-  const page = await context.newPage();
+  page = await context.newPage();
   const consoleErrors: string[] = [];
   page.on('console', (m) => {
     if (m.type() === 'error') consoleErrors.push(m.text());
@@ -102,6 +106,12 @@ export async function openApp(opts: { width?: number; height?: number; scale?: n
         return () => listeners.delete(l);
       };
       w['__tallywiseEmit'] = (c: string) => listeners.forEach((l) => l(c));
+      const progressListeners = new Set<(p: unknown) => void>();
+      bridge['onProgress'] = (l: (p: unknown) => void) => {
+        progressListeners.add(l);
+        return () => progressListeners.delete(l);
+      };
+      w['__tallywiseProgress'] = (p: unknown) => progressListeners.forEach((l) => l(p));
       w[global] = Object.freeze(bridge);
     },
     { names: channels as string[], global: bridgeGlobal },
