@@ -7,6 +7,7 @@ import {
   type HostBridge,
   type HostCommand,
   type HostReply,
+  type JobProgress,
 } from '@shared/host/contract';
 
 /** The page's only way to the host: typed calls over the bridge that preload (or a test) installed. */
@@ -25,4 +26,9 @@ export async function call<C extends Channel>(channel: C, input: ChannelInput<C>
 
 export function onHostCommand(listener: (command: HostCommand) => void): () => void {
   return bridge().onCommand(listener);
+}
+
+/** Progress events of the host's long jobs (each names its job); returns the unsubscribe. */
+export function onHostProgress(listener: (progress: JobProgress) => void): () => void {
+  return bridge().onProgress(listener);
 }

@@ -110,7 +110,7 @@ export function RecordsGrid({ records, set, filter, outliers = null, effortUnit,
   const columnDefs = useMemo<ColDef<CleaningRecord>[]>(() => {
     const text = (id: string, header: string, width: number, editable = false): ColDef<CleaningRecord> => ({
       colId: id, headerName: header, field: `fields.${id}` as ColDef<CleaningRecord>['field'], width, editable, cellClassRules: editable ? editedRule(id) : undefined,
-      headerTooltip: editable ? 'Double-click a cell to correct it; the change goes into the log.' : undefined,
+      headerTooltip: editable ? 'Double-click a cell, or press Enter on it, to correct it; the change goes into the log.' : undefined,
     });
     return [
       { colId: 'flags', headerName: 'Flags', width: 150, cellRenderer: FlagsCell, sortable: false },

@@ -3,6 +3,7 @@ import type { RecordFinding } from '@shared/host/contract';
 import { canRedo, canUndo } from '@shared/cleaning/edit-log';
 import { useElementHeight } from '../../components/useElementHeight';
 import { ReasonDialog } from '../../components/ReasonDialog';
+import { tablistKeys } from '../../components/tablist-keys';
 import { RecordsGrid } from './RecordsGrid';
 import { FindingsPanel, type FindingRow } from './FindingsPanel';
 import { AuditLog } from './AuditLog';
@@ -17,9 +18,11 @@ import { useModelOutliers } from '../models/diagnostics/model-outliers';
 import { dataKey } from '@shared/analysis/data-key';
 import { readEdit } from './edit-values';
 import type { ProjectControls } from './use-project';
+import { useSiteListAction } from './site-list/use-site-list-action';
 
 const fmt = new Intl.NumberFormat('en-GB');
 const visitFields = new Set(['site', 'date', 'effort']);
+const noRecords: never[] = [];
 
 type Ask =
   | { kind: 'leave-out'; ids: string[]; title: string; detail: string; initial: string }
@@ -58,6 +61,7 @@ export function RecordsView({ controls }: { controls: ProjectControls }) {
   const [reason, setReason] = useState('');
   const because = reason.trim() ? { reason: reason.trim() } : {};
   const [sideRef, sideHeight] = useElementHeight<HTMLDivElement>(500);
+  const siteList = useSiteListAction(controls, cleaned?.records ?? noRecords);
 
   useEffect(() => {
     const onKey = (e: KeyboardEvent) => {
@@ -179,6 +183,7 @@ export function RecordsView({ controls }: { controls: ProjectControls }) {
           <button type="button" className="button" onClick={() => void controls.importWorkbook()}>
             Import another workbook…
           </button>
+          {siteList.button}
         </div>
       </header>
       <div className="toolbar" role="toolbar" aria-label="Filters and actions">
@@ -252,6 +257,7 @@ export function RecordsView({ controls }: { controls: ProjectControls }) {
           Effort unit…
         </button>
       </div>
+      {siteList.banner}
       <LinkedRecordsNote link={filter.flag === 'linked' ? filter.link : undefined} outliers={outliers} showingOutliers={filter.flag === 'model-outliers'} onClear={() => setFilter(noFilter)} />
       {note && (
         <div className="problem" role="alert">
@@ -271,7 +277,7 @@ export function RecordsView({ controls }: { controls: ProjectControls }) {
           <RecordsGrid records={cleaned.records} set={set} filter={filter} outliers={outliers} effortUnit={set.effortUnit} onEdit={onEdit} onSelection={setSelected} onShown={setShown} />
           <div className="grid-foot">
             <p data-testid="records-shown">
-              Showing {fmt.format(shown)} of {fmt.format(cleaned.records.length)} records. Double-click a cell to correct it; a site, date or effort applies to its whole visit row.
+              Showing {fmt.format(shown)} of {fmt.format(cleaned.records.length)} records. Double-click a cell, or press Enter on it, to correct it; a site, date or effort applies to its whole visit row.
             </p>
             <label className="reason-field">
               <span>Reason for next changes</span>
@@ -280,7 +286,7 @@ export function RecordsView({ controls }: { controls: ProjectControls }) {
           </div>
         </div>
         <aside className="records-side" aria-label="Findings and changes">
-          <div className="tabs" role="tablist">
+          <div className="tabs" role="tablist" aria-label="Findings and changes" onKeyDown={tablistKeys}>
             <button type="button" role="tab" aria-selected={tab === 'findings'} className={tab === 'findings' ? 'tab is-current' : 'tab'} onClick={() => setTab('findings')}>
               Findings <span className="tab-count">{open}</span>
             </button>
@@ -310,6 +316,7 @@ export function RecordsView({ controls }: { controls: ProjectControls }) {
           }}
         />
       )}
+      {siteList.dialog}
       {ask?.kind === 'convert' && (
         <ConvertEffortDialog
           count={ask.ids.length}

@@ -6,6 +6,7 @@ import { createProjectDocument } from '@shared/project/document';
 import type { ColumnRoles, LoadedSource, OpenedProject, RecoveryOffer, WireDocument } from '@shared/host/contract';
 import { call } from '../../host';
 import { onlyFitsDiffer, type SavedModels } from '../models/saved-models';
+import { useImportJob } from './use-import-job';
 
 /**
  * The open project in the page: its document (sources by identity, the
@@ -71,6 +72,7 @@ export function useProject() {
   const current = useRef<OpenProject | null>(null);
   current.current = project;
   const autosaveTimer = useRef<ReturnType<typeof setTimeout> | undefined>(undefined);
+  const importJob = useImportJob();
 
   const run = useCallback(async <T,>(label: string, title: string, work: () => Promise<T>): Promise<T | undefined> => {
     setBusy(label);
@@ -144,6 +146,18 @@ export function useProject() {
     },
     [scheduleAutosave],
   );
+  /** The project's link to its site list (doc.sites), or none; a change marks the project unsaved. */
+  const setSites = useCallback(
+    (sites: WireDocument['sites']) => {
+      const p = current.current;
+      if (!p || JSON.stringify(p.document.sites) === JSON.stringify(sites)) return;
+      const next = { ...p, dirty: true, document: { ...p.document, sites } };
+      current.current = next;
+      setProject(next);
+      scheduleAutosave(next);
+    },
+    [scheduleAutosave],
+  );
   const undo = useCallback(() => changeLog(undoGroup), [changeLog]);
   const redo = useCallback(() => changeLog(redoGroup), [changeLog]);
   const revert = useCallback((id: string) => changeLog((log) => revertEntry(log, id)), [changeLog]);
@@ -162,7 +176,9 @@ export function useProject() {
 
   const importPath = useCallback(
     async (path: string, dateOrder?: 'dmy' | 'mdy', roles?: ColumnRoles) => {
-      const reading = await run(`Reading ${fileNameOf(path)}…`, `${fileNameOf(path)} could not be imported.`, () => call('import:read-workbook', { path, dateOrder, roles }));
+      // With progress and a cancel; a cancelled import gives null and a note, and changes nothing.
+      const into = current.current?.openId ?? null;
+      const reading = await run(`Reading ${fileNameOf(path)}…`, `${fileNameOf(path)} could not be imported.`, () => importJob.read(fileNameOf(path), { path, dateOrder, roles }));
       if (!reading) return;
       if (!reading.source) {
         if (reading.rolesNeeded) {
@@ -175,6 +191,10 @@ export function useProject() {
       }
       const source = reading.source;
       const p = current.current;
+      if ((p?.openId ?? null) !== into) {
+        setProblem({ title: `${source.summary.fileName} was not added.`, message: 'Another project was opened while it was being read. Import it again to add it to this project.' });
+        return;
+      }
       if (p?.sources.some((s) => s.summary.id === source.summary.id)) {
         setProblem({ title: `${source.summary.fileName} is already in the project.`, message: 'The same file (same content) was imported before; its records are in the grid.' });
         return;
@@ -187,7 +207,7 @@ export function useProject() {
       setProject(next);
       scheduleAutosave(next);
     },
-    [run, scheduleAutosave],
+    [run, scheduleAutosave, importJob.read],
   );
 
   const answerQuestion = useCallback(
@@ -295,10 +315,10 @@ export function useProject() {
   }, [checkRecovery]);
 
   return {
-    project, busy, problem, question, rolesQuestion, offer,
+    project, busy, problem, question, rolesQuestion, offer, importJob,
     dismissProblem: () => setProblem(null),
     showProblem: setProblem,
-    edit, undo, redo, revert, setModels, changeReport,
+    edit, undo, redo, revert, setModels, changeReport, setSites,
     openDemo, importWorkbook, importPath, answerQuestion, answerRoles, openProject, save, saveAs, restoreRecovery, discardRecovery,
   };
 }
