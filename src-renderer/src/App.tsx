@@ -5,9 +5,11 @@ import { ProgrammeView } from './views/ProgrammeView';
 import { RecordsView } from './views/records/RecordsView';
 import { DateOrderDialog } from './views/records/DateOrderDialog';
 import { RolesDialog } from './views/records/RolesDialog';
+import { ImportProgress } from './views/records/ImportProgress';
 import { useProject } from './views/records/use-project';
 import { ModelsView } from './views/models/ModelsView';
-import { useModels } from './views/models/use-models';
+import { useModels, useRefitOnOpen } from './views/models/use-models';
+import { BackgroundFitStatus } from './views/models/SavedModelsPanel';
 import { ReportView } from './views/report/ReportView';
 import { useReportRun } from './views/report/use-report-run';
 import { onRecordLink } from './views/models/diagnostics/record-link';
@@ -29,6 +31,8 @@ export function App() {
   const [dropping, setDropping] = useState(false);
   const controls = useProject();
   const models = useModels(controls.setModels);
+  // Saved models are fitted again when a project opens, whatever stage is shown.
+  useRefitOnOpen(controls.project, models);
   const reportRun = useReportRun();
   const { project } = controls;
   const latest = useRef(controls);
@@ -142,7 +146,9 @@ export function App() {
             </button>
           </div>
         )}
-        {controls.busy && (
+        {models.running && stage !== 'models' && <BackgroundFitStatus running={models.running} onCancel={models.cancel} />}
+        <ImportProgress job={controls.importJob.job} note={controls.importJob.note} onCancel={controls.importJob.cancel} onDismiss={controls.importJob.dismissNote} />
+        {controls.busy && !controls.importJob.job && (
           <p className="status busy" role="status">
             {controls.busy}
           </p>

@@ -18,6 +18,7 @@ import { SpecBuilder } from './SpecBuilder';
 import { ComparisonPanel } from './ComparisonPanel';
 import { ModelResult } from './ModelResult';
 import { DiagnosticsPanel } from './DiagnosticsPanel';
+import { tablistKeys } from '../../components/tablist-keys';
 
 function FitProgress({ running, onCancel }: { running: RunningFit; onCancel: () => void }) {
   const total = running.species.length;
@@ -168,7 +169,7 @@ export function ModelsView({ controls, models: m }: { controls: ProjectControls;
           {!fittedSpecies.length && <p className="status">No model fitted yet. Choose the species and the model on the left, then Fit.</p>}
           {fittedSpecies.length > 0 && (
             <>
-              <div className="tabs species-tabs" role="tablist" aria-label="Species with fitted models">
+              <div className="tabs species-tabs" role="tablist" aria-label="Species with fitted models" onKeyDown={tablistKeys}>
                 {fittedSpecies.map((s) => (
                   <button key={s} type="button" role="tab" aria-selected={s === shownSpecies} className={s === shownSpecies ? 'tab is-current' : 'tab'} onClick={() => m.setShown(s)}>
                     {s}

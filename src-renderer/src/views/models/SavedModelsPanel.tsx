@@ -1,3 +1,4 @@
+import type { RunningFit } from './use-models';
 import type { WaitingModel } from './saved-models';
 
 /**
@@ -29,5 +30,25 @@ export function SavedModelsPanel({ waiting, dataKey, chosen, busy, onFit }: { wa
         Fit again
       </button>
     </section>
+  );
+}
+
+/**
+ * A fit running while another stage is shown (the saved models of an opened
+ * project are fitted again in the background): what is being fitted, how
+ * far, and Cancel, as on the Models stage.
+ */
+export function BackgroundFitStatus({ running, onCancel }: { running: RunningFit; onCancel: () => void }) {
+  const overall = Math.min(1, (running.done + running.fraction) / Math.max(1, running.species.length));
+  return (
+    <div className="banner background-fit" role="status" data-testid="background-fit">
+      <span>
+        Fitting “{running.label}” for {running.species.join(', ')} in the background ({Math.round(overall * 100)}%); the project’s saved models are fitted again on opening, and the Report stage lists a chosen model once it is fitted.
+      </span>
+      <progress max={1} value={overall} aria-label="Background fit progress" />
+      <button type="button" className="button is-small" onClick={onCancel}>
+        Cancel
+      </button>
+    </div>
   );
 }

@@ -6,6 +6,9 @@ import { modelId, withModels, type FittedModel } from './fitted-model';
 import { initialDraft, specLabel, type SpecDraft } from './spec-draft';
 import { fitTableFor, rowsOfSpecies } from './fit-table';
 import { choicesFromDocument, savedModels, waitingFromDocument, withDocIds, type SavedModels, type WaitingModel } from './saved-models';
+import type { OpenProject } from '../records/use-project';
+import { useSiteSheet } from './site-attributes';
+import { cleanedAnalysis } from './analysis-input';
 
 /**
  * The Models stage's state, kept by the App so that it lives on while the
@@ -179,3 +182,24 @@ export function useModels(onSaved?: (saved: SavedModels) => void) {
 }
 
 export type ModelsControls = ReturnType<typeof useModels>;
+
+/**
+ * Called by the App whatever stage is shown: the saved models of an opened
+ * project are fitted again in the background as soon as its analysis table
+ * is ready (autoFit, once each), so the Report stage finds the chosen models
+ * without a visit to the Models stage. The table is only made while some
+ * saved model waits.
+ */
+export function useRefitOnOpen(project: OpenProject | null, models: ModelsControls): void {
+  // Only models restored from this project (not those of the project open before, in the moment before restoring).
+  const own = !!project && models.waiting.length > 0 && models.waiting.every((w) => project.document.models.some((d) => d.id === w.docId && d.species === w.species));
+  const needed = own ? project : null;
+  const site = useSiteSheet(needed);
+  const input = needed && !site.loading ? cleanedAnalysis(needed.sources, needed.document.cleaning, site.sheet) : null;
+  const table = input?.analysis.table;
+  const key = input?.dataKey ?? '';
+  const { autoFit, running } = models;
+  useEffect(() => {
+    if (table && key && !running) autoFit(table, key);
+  }, [table, key, autoFit, running]);
+}
