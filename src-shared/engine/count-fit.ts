@@ -37,7 +37,7 @@ import { countTerms } from './model-terms';
 import { fitNegbin } from './negbin/fit';
 import { sanitizeSummary, warningSentences } from './summary';
 import type { Design, FitControl, FitOutcome, Warning } from './types';
-import { FitInputError } from './types';
+import { FitInputError, wantsInference } from './types';
 
 /** termOf value of fixed-site dummy columns. */
 const SITE_TERM = -2;
@@ -178,6 +178,7 @@ export function fitCountGlm(table: DataTable, spec: ModelSpec, control: FitContr
   const hasOffset = spec.offsets.length > 0;
   const off = hasOffset ? offset : null;
   const warnings = [...prep.warnings];
+  const inference = wantsInference(control);
 
   let family: Family;
   let fit;
@@ -187,7 +188,7 @@ export function fitCountGlm(table: DataTable, spec: ModelSpec, control: FitContr
   let converged: boolean;
   let nbLogLik: number | null = null;
   if (dist === 'negbin') {
-    const nb = fitNegbin({ x: design.data, n, p, y, offset: off, control, structure: prep.structure });
+    const nb = fitNegbin({ x: design.data, n, p, y, offset: off, control, structure: prep.structure, covariance: inference });
     fit = nb.irls;
     theta = nb.theta;
     boundary = nb.boundary;
@@ -198,7 +199,7 @@ export function fitCountGlm(table: DataTable, spec: ModelSpec, control: FitContr
     warnings.push(...nb.warnings);
   } else {
     family = dist === 'poisson' ? poissonFamily : quasiPoissonFamily;
-    fit = irls({ x: design.data, n, p, y, offset: off, family, control, structure: prep.structure });
+    fit = irls({ x: design.data, n, p, y, offset: off, family, control, structure: prep.structure, covariance: inference });
     iterations = fit.iterations;
     converged = fit.converged;
     warnings.push(...fit.warnings);
@@ -211,17 +212,17 @@ export function fitCountGlm(table: DataTable, spec: ModelSpec, control: FitContr
   const dispersion = pearson / dfResidual;
   // The fit's own deviance is at these means (and, for the negative binomial, the final theta).
   const deviance = fit.deviance;
-  const nullDeviance = totalDeviance(family, y, nullModelMeans(family, y, off, control));
+  const nullDeviance = inference ? totalDeviance(family, y, nullModelMeans(family, y, off, control)) : Number.NaN;
 
   // Covariance: model-based (scaled for quasi-Poisson) or site-clustered sandwich.
-  let cov: Float64Array = Float64Array.from(fit.xtwxInverse);
+  let cov: Float64Array = inference ? Float64Array.from(fit.xtwxInverse) : new Float64Array(p * p).fill(Number.NaN);
   if (family.hasDispersion) scaleCovariance(cov, dispersion);
   let seType: FitSummary['seType'] = 'model';
-  if (spec.robust === 'site') {
-    if (!spec.site) {
-      throw new FitInputError('robust-needs-site', 'Site-robust standard errors need a site column: add "site" to the model spec or set "robust" to "none".');
-    }
-    const texts = requireColumn(table, spec.site.column).texts;
+  if (spec.robust === 'site' && !spec.site) {
+    throw new FitInputError('robust-needs-site', 'Site-robust standard errors need a site column: add "site" to the model spec or set "robust" to "none".');
+  }
+  if (spec.robust === 'site' && inference) {
+    const texts = requireColumn(table, spec.site!.column).texts;
     const cl = clusterIndex(prep.rows.map((r) => texts[r]));
     const score = new Float64Array(n);
     for (let i = 0; i < n; i++) score[i] = ((y[i] - mu[i]) * family.link.muEta(fit.eta[i])) / family.variance(mu[i]);
@@ -229,7 +230,7 @@ export function fitCountGlm(table: DataTable, spec: ModelSpec, control: FitContr
     seType = 'site-robust';
     warnings.push({
       code: 'robust-se',
-      message: `Standard errors are site-clustered sandwich estimates (clustered by "${spec.site.column}", ${cl.levels.length} sites, small-sample factor G/(G-1)·(n-1)/(n-p)), reported in place of the model-based ones.`,
+      message: `Standard errors are site-clustered sandwich estimates (clustered by "${spec.site!.column}", ${cl.levels.length} sites, small-sample factor G/(G-1)·(n-1)/(n-p)), reported in place of the model-based ones.`,
     });
     if (cl.levels.length < FEW_CLUSTERS) {
       warnings.push({
@@ -272,7 +273,7 @@ export function fitCountGlm(table: DataTable, spec: ModelSpec, control: FitContr
     random: null,
     seType,
     warnings: warningSentences(warnings),
-  });
+  }, inference);
 
   let siteEffects: FitOutcome['siteEffects'];
   if (prep.siteLevels && prep.siteOfRow) {

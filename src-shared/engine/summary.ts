@@ -14,9 +14,10 @@ export function finiteOrNull(v: number | null | undefined): number | null {
  * Replaces every non-finite number in a summary: nullable fields become
  * null; numbers in coefficient rows (which the contract types as numbers)
  * become null too and a warning says which terms were affected. Returns a new
- * object; the input is not changed.
+ * object; the input is not changed. Without `inference` (a fit asked for
+ * estimates only) empty SEs and limits are expected and not warned about.
  */
-export function sanitizeSummary(summary: FitSummary): FitSummary {
+export function sanitizeSummary(summary: FitSummary, inference = true): FitSummary {
   const bad: string[] = [];
   const fixRows = (rows: CoefficientRow[]): CoefficientRow[] =>
     rows.map((r) => {
@@ -25,7 +26,7 @@ export function sanitizeSummary(summary: FitSummary): FitSummary {
       for (const key of ['estimate', 'se', 'z', 'p', 'lower', 'upper'] as const) {
         if (!Number.isFinite(out[key])) {
           (out as Record<string, unknown>)[key] = null;
-          broken = true;
+          broken ||= inference || key === 'estimate';
         }
       }
       if (broken) bad.push(r.term);

@@ -28,6 +28,34 @@ export interface FitControl {
   signal?: { readonly aborted: boolean };
   maxIterations?: number;
   tolerance?: number;
+  /**
+   * 'none': estimates, log-likelihood and convergence only. No covariance
+   * (`covariance`, SEs and site SDs are NaN), no null deviance, no robust
+   * SEs; the convergence checks are the same. For refits that read only the
+   * coefficients (the bootstrap). Default 'full'.
+   */
+  inference?: 'full' | 'none';
+  /** Where to start the optimiser (e.g. a refit from the full-data fit); the optimum is the same. */
+  start?: FitStart;
+}
+
+/**
+ * Starting values by name: count-part and zero-part coefficients, theta,
+ * and per-site effects (by the site level of the table being fitted). Used
+ * by the zero-inflated and hurdle fits and by fixed site effects absorbed;
+ * the other fits ignore it. When a value the fit needs is missing, the fit
+ * starts as it would without a start.
+ */
+export interface FitStart {
+  readonly beta: ReadonlyMap<string, number>;
+  readonly gamma: ReadonlyMap<string, number>;
+  readonly theta: number | null;
+  readonly siteEffect: ReadonlyMap<string, number>;
+}
+
+/** Whether a fit is asked for its covariance and the rest of its inference. */
+export function wantsInference(control: FitControl): boolean {
+  return control.inference !== 'none';
 }
 
 /** A typed engine warning: a stable code and a plain sentence. */

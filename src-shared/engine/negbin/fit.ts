@@ -38,6 +38,8 @@ export interface NegbinInput {
   /** The design's column structure, when the caller has it (else computed here). */
   readonly structure?: ColumnStructure;
   readonly control?: FitControl;
+  /** Compute the covariance of the final fit (default true); false leaves irls.xtwxInverse empty. */
+  readonly covariance?: boolean;
 }
 
 export interface NegbinResult {
@@ -117,7 +119,7 @@ export function fitNegbin(input: NegbinInput): NegbinResult {
   let fit = irls({ ...base, family: poissonFamily, control: { ...control, tolerance: Math.max(tol, START_TOLERANCE) }, covariance: false });
   let iterations = fit.iterations;
   const finishPoisson = (from: IrlsResult): IrlsResult => {
-    const f = irls({ ...base, family: poissonFamily, startBeta: from.beta, startAt: from });
+    const f = irls({ ...base, family: poissonFamily, startBeta: from.beta, startAt: from, covariance: input.covariance });
     iterations += f.iterations;
     return f;
   };
@@ -180,7 +182,7 @@ export function fitNegbin(input: NegbinInput): NegbinResult {
   const family = negbinFamily(th.theta);
   // The last IRLS's weights (at the theta before) are not needed any more: overwritten with the final ones.
   const weights = fit.weights;
-  const xtwxInverse = glmCovariance(input.x, input.n, input.p, fit.eta, fit.mu, family, pw, weights, structure);
+  const xtwxInverse = input.covariance === false ? new Float64Array(0) : glmCovariance(input.x, input.n, input.p, fit.eta, fit.mu, family, pw, weights, structure);
   fit = { ...fit, xtwxInverse, weights, deviance: totalDeviance(family, y, fit.mu, pw, fit.eta) };
   // SE(theta) from the observed information of theta at the final means.
   const thetaInformation = thetaInfo(th.theta, y, fit.mu, pw, table);

@@ -22,7 +22,7 @@ import { findAliased } from '../design/aliasing';
 import { solveSpd } from '../linalg/dense';
 import { THETA_MAX, thetaML } from '../negbin/theta';
 import type { FitControl } from '../types';
-import { FitCancelled, FitInputError } from '../types';
+import { FitCancelled, FitInputError, wantsInference } from '../types';
 import type { AbsorbedState } from './absorbed-newton';
 import { absorbedNewton, absorbedWork } from './absorbed-newton';
 import { groupBySite, type SiteRows } from './site-groups';
@@ -31,6 +31,20 @@ import { groupBySite, type SiteRows } from './site-groups';
 export interface AbsorbedInput extends SiteRows {
   readonly family: 'poisson' | 'negbin';
   readonly control?: FitControl;
+  /** A start (e.g. the full-data fit): per input column and per input site (NaN where unknown), and theta. */
+  readonly start?: { readonly beta: Float64Array; readonly alpha: Float64Array; readonly theta: number | null };
+}
+
+/** The start of `input` over the kept columns and the sites with counts, or null when some value is unknown. */
+function keptStart(input: AbsorbedInput, kept: readonly number[], newIndex: Int32Array, used: number): { beta: Float64Array; alpha: Float64Array } | null {
+  const s = input.start;
+  if (!s) return null;
+  const beta = Float64Array.from(kept, (j) => s.beta[j]);
+  const alpha = new Float64Array(used);
+  newIndex.forEach((k, site) => {
+    if (k >= 0) alpha[k] = s.alpha[site];
+  });
+  return beta.every(Number.isFinite) && alpha.every(Number.isFinite) ? { beta, alpha } : null;
 }
 
 export interface AbsorbedResult {
@@ -151,7 +165,10 @@ export function fitAbsorbedCore(input: AbsorbedInput): AbsorbedResult {
   const poissonOnly = input.family === 'poisson';
   // For negbin the Poisson fit is only a start: a looser tolerance saves steps.
   const startControl = poissonOnly ? control : { ...control, tolerance: Math.max(control.tolerance ?? 0, 1e-6) };
-  let state: AbsorbedState = absorbedNewton(data, Infinity, null, startControl, poissonOnly, work);
+  // A given start replaces the Poisson fit (for negbin: a step at the given theta).
+  const warm = keptStart(input, cols.kept, newIndex, used);
+  const theta0 = !poissonOnly && warm && input.start!.theta !== null && input.start!.theta < THETA_MAX ? input.start!.theta : Infinity;
+  let state: AbsorbedState = absorbedNewton(data, theta0, warm, startControl, poissonOnly, work);
   let iterations = state.iterations;
   let theta: number | null = null;
   let thetaSe: number | null = null;
@@ -159,7 +176,7 @@ export function fitAbsorbedCore(input: AbsorbedInput): AbsorbedResult {
   let converged = state.converged;
   if (input.family === 'negbin') {
     const d1 = Math.sqrt(2 * Math.max(1, m - p - used));
-    let est = thetaML(y, state.mu);
+    let est = thetaML(y, state.mu, theta0 < Infinity ? { start: theta0 } : {});
     let ll0 = state.logLik;
     let th0 = est.theta;
     converged = false;
@@ -196,17 +213,23 @@ export function fitAbsorbedCore(input: AbsorbedInput): AbsorbedResult {
     }
   }
 
-  const solved = p > 0 ? solveSpd(state.info, p, new Float64Array(p), true) : { x: new Float64Array(0), inverse: new Float64Array(0) };
+  // Without inference the factorisation still checks that the information is not singular.
+  const inference = wantsInference(control);
+  const solved = p > 0 ? solveSpd(state.info, p, new Float64Array(p), inference) : { x: new Float64Array(0), inverse: new Float64Array(0) };
   if (!solved) {
     throw new FitInputError('singular-information', 'The covariates cannot be estimated together with the site effects (the information matrix is singular). Remove covariates that are nearly constant within sites.');
   }
-  const cov = solved.inverse!;
+  const cov = inference ? solved.inverse! : new Float64Array(p * p).fill(Number.NaN);
   const siteEffect = new Float64Array(nSites).fill(-Infinity);
   const siteSd = new Float64Array(nSites).fill(Infinity);
   for (let s = 0; s < nSites; s++) {
     const k = newIndex[s];
     if (k < 0) continue;
     siteEffect[s] = state.alpha[k];
+    if (!inference) {
+      siteSd[s] = Number.NaN;
+      continue;
+    }
     let q = 0;
     for (let a = 0; a < p; a++) for (let b = 0; b < p; b++) q += state.siteMean[k * p + a] * cov[b * p + a] * state.siteMean[k * p + b];
     siteSd[s] = Math.sqrt(1 / state.siteWeight[k] + q);

@@ -13,12 +13,13 @@
 import type { DataTable } from '../../data/table';
 import type { ModelSpec } from '../../model/spec';
 import { BOUNDARY_THETA_SENTENCE } from '../negbin/fit';
-import type { FitControl, FitOutcome, Warning } from '../types';
+import { wantsInference, type FitControl, type FitOutcome, type Warning } from '../types';
 import { fitAbsorbedCore } from './absorbed-core';
 import { absorbedNewton } from './absorbed-newton';
 import { siteFrame } from './site-frame';
 import { pearsonChi2, totalDeviance } from '../inference/likelihood';
 import { waldRows } from '../inference/wald';
+import { sanitizeSummary } from '../summary';
 import { countFamily, siteSummary } from './site-summary';
 
 /** Deviance of the intercept-only model with the same offset and theta (theta null = Poisson). */
@@ -47,6 +48,15 @@ export function fitAbsorbedSites(table: DataTable, spec: ModelSpec, control: Fit
     nSites: sf.levels.length,
     family: negbin ? 'negbin' : 'poisson',
     control,
+    ...(control.start
+      ? {
+          start: {
+            beta: Float64Array.from(d.names, (nm) => control.start!.beta.get(nm) ?? Number.NaN),
+            alpha: Float64Array.from(sf.levels, (l) => control.start!.siteEffect.get(l) ?? Number.NaN),
+            theta: control.start.theta,
+          },
+        }
+      : {}),
   });
   const warnings: Warning[] = [...sf.warnings];
   for (const j of core.withinSite) {
@@ -88,7 +98,8 @@ export function fitAbsorbedSites(table: DataTable, spec: ModelSpec, control: Fit
   const dispersion = quasi ? pearson / Math.max(1, dfResidual) : undefined;
   const covariance = quasi ? core.covariance.map((v) => v * dispersion!) : core.covariance;
   const betaNames = core.kept.map((j) => d.names[j]);
-  const summary = siteSummary({
+  const inference = wantsInference(control);
+  const published = siteSummary({
     distribution: spec.distribution,
     converged: core.converged,
     iterations: core.iterations,
@@ -96,7 +107,7 @@ export function fitAbsorbedSites(table: DataTable, spec: ModelSpec, control: Fit
     logLik: quasi ? null : core.logLik,
     df,
     deviance: totalDeviance(countFamily(theta), yUsed, core.mu),
-    nullDeviance: nullDevianceWithOffset(sf.y, sf.offset, theta),
+    nullDeviance: inference ? nullDevianceWithOffset(sf.y, sf.offset, theta) : null,
     dfResidual,
     pearsonChi2: pearson,
     dispersion,
@@ -105,6 +116,8 @@ export function fitAbsorbedSites(table: DataTable, spec: ModelSpec, control: Fit
     random: null,
     warnings,
   });
+  // Without inference the SEs are NaN: published as empty, as in the other fits.
+  const summary = inference ? published : sanitizeSummary(published, false);
   control.onProgress?.(1, 'done');
   return {
     summary,

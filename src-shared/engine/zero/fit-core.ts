@@ -6,7 +6,7 @@
  * estimates. Table handling lives in ./fit-zero.ts.
  */
 import type { FitControl } from '../types';
-import { FitCancelled } from '../types';
+import { FitCancelled, wantsInference } from '../types';
 import type { ZeroModelData } from './likelihood';
 import { evaluateZeroModel, parameterCount } from './likelihood';
 import { matVec } from '../linalg/dense';
@@ -23,7 +23,7 @@ export interface ZeroCoreFit {
   readonly par: Float64Array;
   readonly logLikelihood: number;
   readonly perObservation: Float64Array;
-  /** Inverse observed information over all parameters (log(theta) last), or null when singular. */
+  /** Inverse observed information over all parameters (log(theta) last), or null when singular or not asked for. */
   readonly covariance: Float64Array | null;
   readonly gradient: Float64Array;
   /** Analytic Hessian of the log-likelihood at `par` (k x k, column-major). */
@@ -39,13 +39,14 @@ export interface ZeroCoreFit {
   readonly variance: Float64Array;
 }
 
-export function fitZeroCore(m: ZeroModelData, control: FitControl = {}): ZeroCoreFit {
+/** `given`: starting values [beta, gamma, log theta] in place of those from simpler fits. */
+export function fitZeroCore(m: ZeroModelData, control: FitControl = {}, given: Float64Array | null = null): ZeroCoreFit {
   const k = parameterCount(m);
   const nb = m.count === 'negbin';
   const maxIterations = control.maxIterations ?? 100;
   if (control.signal?.aborted) throw new FitCancelled();
   control.onProgress?.(0, 'starting values');
-  const start = startingValues(m, control.signal);
+  const start = given ?? startingValues(m, control.signal);
   const upper = new Float64Array(k).fill(Number.POSITIVE_INFINITY);
   if (nb) upper[k - 1] = LOG_THETA_LIMIT;
   control.onProgress?.(0.1, 'maximising the likelihood');
@@ -55,6 +56,7 @@ export function fitZeroCore(m: ZeroModelData, control: FitControl = {}): ZeroCor
     gradientTolerance: 1e-4,
     upper,
     signal: control.signal,
+    inverse: wantsInference(control),
     onIteration: (it) => control.onProgress?.(0.1 + 0.85 * Math.min(1, it / 20), 'maximising the likelihood'),
   });
   const perObservation = new Float64Array(m.y.length);

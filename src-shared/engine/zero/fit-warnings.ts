@@ -8,14 +8,17 @@ import type { Warning } from '../types';
 import type { ZeroCoreFit } from './fit-core';
 import { LOG_THETA_LIMIT } from './fit-core';
 import type { ZeroModelData } from './likelihood';
+import { inverseNegativeHessian } from './newton-maximize';
 import type { CheckedKind } from './input-checks';
 
 /** Largest |gradient| in SE units, for the non-convergence message. */
 function gradientPhrase(fit: ZeroCoreFit): string {
   const k = fit.par.length;
-  if (!fit.covariance) return 'the information matrix was not positive definite at the last step';
+  // A fit without inference has no covariance: inverted here (only a fit that did not converge needs it).
+  const cov = fit.covariance ?? inverseNegativeHessian(fit.hessian, k);
+  if (!cov) return 'the information matrix was not positive definite at the last step';
   let m = 0;
-  for (let j = 0; j < k; j++) m = Math.max(m, Math.abs(fit.gradient[j]) * Math.sqrt(fit.covariance[j * k + j]));
+  for (let j = 0; j < k; j++) m = Math.max(m, Math.abs(fit.gradient[j]) * Math.sqrt(cov[j * k + j]));
   return `the largest gradient component was ${m.toPrecision(2)} standard errors`;
 }
 

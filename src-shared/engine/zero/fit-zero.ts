@@ -28,12 +28,14 @@ import { informationCriteria } from '../inference/likelihood';
 import { waldRows } from '../inference/wald';
 import { sanitizeSummary, warningSentences } from '../summary';
 import type { FitControl, FitOutcome, Warning } from '../types';
-import { FitInputError } from '../types';
+import { FitInputError, wantsInference } from '../types';
 import type { CountKind } from './count-density';
 import type { ZeroCoreFit } from './fit-core';
 import { fitZeroCore } from './fit-core';
 import { fitWarnings, largeErrorWarnings } from './fit-warnings';
-import { siteIntercepts } from './fixed-sites';
+import { SITE_TERM_INDEX, siteIntercepts } from './fixed-sites';
+import { givenStart } from './start-values';
+import type { FactorCoding } from '../design/build';
 import type { ZeroModelData } from './likelihood';
 import { inverseNegativeHessian } from './newton-maximize';
 import type { ZeroKind } from './observation-terms';
@@ -113,22 +115,24 @@ export function fitZeroModel(table: DataTable, spec: ModelSpec, control: FitCont
   const { frame, X, Z } = prepared;
   const warnings: Warning[] = [...prepared.warnings];
   const data: ZeroModelData = { zero: kind.zero, count: kind.count, y: frame.y, X, Z, offset: frame.offset };
-  const fit = fitZeroCore(data, control);
+  const siteCoding = spec.site?.effect === 'fixed' ? (prepared.count.levels[SITE_TERM_INDEX] as FactorCoding) : null;
+  const fit = fitZeroCore(data, control, control.start ? givenStart(data, control.start, siteCoding) : null);
   const n = frame.y.length;
   const k = fit.par.length;
   const kc = X.p + Z.p;
 
   warnings.push(...fitWarnings(kind, fit));
-  let cov = coefficientCovariance(data, fit);
+  const inference = wantsInference(control);
+  let cov = inference ? coefficientCovariance(data, fit) : new Float64Array(kc * kc).fill(Number.NaN);
   if (!cov) {
     throw new FitInputError(
       'singular-information',
       `The information matrix of the ${kind.label} fit is singular, so standard errors cannot be given: some coefficient is not determined by the data (count part: ${X.names.join(', ')}; zero part: ${Z.names.join(', ')}). Simplify the model, e.g. fewer zero-part predictors.`,
     );
   }
-  warnings.push(...largeErrorWarnings(data, fit.par, cov));
+  if (inference) warnings.push(...largeErrorWarnings(data, fit.par, cov));
   let seType: FitSummary['seType'] = 'model';
-  if (spec.robust === 'site' && spec.site) {
+  if (spec.robust === 'site' && spec.site && inference) {
     const texts = requireColumn(table, spec.site.column).texts;
     const robust = siteClusteredCovariance(data, fit, frame.rows.map((r) => texts[r]));
     if (!robust) throw new FitInputError('singular-information', `The information matrix of the ${kind.label} fit is singular, so site-clustered standard errors cannot be given. Simplify the model.`);
@@ -180,7 +184,7 @@ export function fitZeroModel(table: DataTable, spec: ModelSpec, control: FitCont
     random: null,
     seType,
     warnings: warningSentences(warnings),
-  });
+  }, inference);
   return {
     summary,
     distribution: spec.distribution,

@@ -30,6 +30,8 @@ export interface MaximizeOptions {
   upper?: Float64Array;
   signal?: { readonly aborted: boolean };
   onIteration?: (iteration: number, value: number) => void;
+  /** Invert the final negative Hessian for `inverseInformation` (default true; false leaves it null). */
+  inverse?: boolean;
 }
 
 export interface MaximizeResult {
@@ -177,5 +179,5 @@ export function newtonMaximize(f: ObjectiveFn, start: Float64Array, opt: Maximiz
     }
   }
   const atUpperLimit = Array.from(x, (v, j) => v >= upper[j]);
-  return { x, value, grad, hess, inverseInformation: inverseNegativeHessian(hess, k), iterations, converged, reason, atUpperLimit };
+  return { x, value, grad, hess, inverseInformation: opt.inverse === false ? null : inverseNegativeHessian(hess, k), iterations, converged, reason, atUpperLimit };
 }

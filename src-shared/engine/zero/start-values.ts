@@ -11,11 +11,15 @@
 import { poissonFamily } from '../families/poisson';
 import { irls } from '../irls';
 import { crossprodVec, matVec, weightedCrossprod } from '../linalg/dense';
-import type { Design, FitControl } from '../types';
+import type { Design, FitControl, FitStart } from '../types';
+import { SITE_TERM_INDEX } from './fixed-sites';
 import type { Evaluation, ZeroModelData } from './likelihood';
 import type { ObjectiveFn } from './newton-maximize';
 import { newtonMaximize } from './newton-maximize';
 import { logSigmoid, sigmoid } from './observation-terms';
+
+/** log(theta) of a given start is held below fit-core's LOG_THETA_LIMIT (15), inside the feasible region. */
+const LOG_THETA_START_LIMIT = 14;
 
 /** Logistic log-likelihood of 0/1 responses s with gradient and Hessian. */
 function logisticObjective(D: Design, s: Float64Array): ObjectiveFn {
@@ -69,5 +73,36 @@ export function startingValues(m: ZeroModelData, signal?: FitControl['signal']):
   const out = new Float64Array(m.X.p + m.Z.p + (m.count === 'negbin' ? 1 : 0));
   out.set(count.beta, 0);
   out.set(gamma, m.X.p);
+  return out;
+}
+
+/**
+ * Starting values from a given start (e.g. the full-data fit, for a
+ * bootstrap refit), matched by column name: [beta, gamma, log theta]. With
+ * fixed sites (`site`: the site term's coding) the intercept is the
+ * reference site's effect and each site column its effect minus that.
+ * Null when a column has no value in the start.
+ */
+export function givenStart(m: ZeroModelData, start: FitStart, site: { readonly column: string; readonly reference: string } | null): Float64Array | null {
+  const out = new Float64Array(m.X.p + m.Z.p + (m.count === 'negbin' ? 1 : 0));
+  const ref = site ? start.siteEffect.get(site.reference) : undefined;
+  const prefix = site ? `${site.column}=` : '';
+  for (let j = 0; j < m.X.p; j++) {
+    const name = m.X.names[j];
+    let v: number | undefined;
+    if (site && name === 'intercept') v = ref;
+    else if (site && m.X.termOf[j] === SITE_TERM_INDEX) {
+      const e = start.siteEffect.get(name.slice(prefix.length));
+      v = e === undefined || ref === undefined ? undefined : e - ref;
+    } else v = start.beta.get(name);
+    if (v === undefined || !Number.isFinite(v)) return null;
+    out[j] = v;
+  }
+  for (let j = 0; j < m.Z.p; j++) {
+    const v = start.gamma.get(m.Z.names[j]);
+    if (v === undefined || !Number.isFinite(v)) return null;
+    out[m.X.p + j] = v;
+  }
+  if (m.count === 'negbin') out[out.length - 1] = start.theta !== null && start.theta > 0 ? Math.min(Math.log(start.theta), LOG_THETA_START_LIMIT) : 0;
   return out;
 }
