@@ -9,12 +9,13 @@
 import type { DataTable } from '../data/table';
 import { splitBy } from '../data/table';
 import { fitModel } from '../engine/fit';
-import { FitCancelled, type FitControl } from '../engine/types';
+import { FitCancelled, type FitControl, type FitStart } from '../engine/types';
 import type { ModelSpec } from '../model/spec';
 import type { CallContext } from '../worker/port';
 import type { FitJob, FitRunner, JobResult, RunOptions } from './fit-runner';
 import { annualLogIndices } from './indices';
 import { compositeLog } from './composite-log';
+import { startOfDraws } from './refit-start';
 import { tableOfSites } from './resample-sites';
 
 export interface ReplicateJob {
@@ -35,6 +36,8 @@ export interface ReplicateJob {
   /** The composite's base season and its seasons (those of the first species' full-data fit). */
   readonly base: string;
   readonly levels: readonly string[];
+  /** Starts of each species' refits from its full-data fit (startOfFit); species without one start from scratch. */
+  readonly starts?: Readonly<Record<string, FitStart>>;
 }
 
 /** The composite log index per season of `levels`, or why the replicate is left out. */
@@ -58,7 +61,7 @@ function replicateValues(job: ReplicateJob, fits: { keys: string[]; jobs: FitJob
     if (fits.keys.length !== job.species) throw new Error('a species is missing');
     const sp = results.map((f, i) => {
       if (!f.ok || !f.outcome.summary.converged) throw new Error('not fitted');
-      return { key: fits.keys[i], log: annualLogIndices(fits.tables[i], fits.jobs[i].spec, f.outcome, job.base) };
+      return { key: fits.keys[i], log: annualLogIndices(fits.tables[i], fits.jobs[i].spec, f.outcome, job.base, { se: false }) };
     });
     const c = compositeLog(sp, job.weights);
     return { ok: true, values: job.levels.map((l) => c[sp[0].log.time.levels.indexOf(l)]) };
@@ -67,12 +70,19 @@ function replicateValues(job: ReplicateJob, fits: { keys: string[]; jobs: FitJob
   }
 }
 
-/** The whole replicate in this thread (what a worker runs); cancelling throws FitCancelled. */
+/**
+ * The whole replicate in this thread (what a worker runs); cancelling throws
+ * FitCancelled. The refits skip their inference (`control.inference`,
+ * default 'none': the bootstrap reads only estimates and convergence) and
+ * start from the full-data fits in `job.starts`.
+ */
 export function compositeReplicate(job: ReplicateJob, control: FitControl = {}): ReplicateOutcome {
   const fits = replicateFits(job);
-  const results = fits.jobs.map((j): JobResult => {
+  const results = fits.jobs.map((j, i): JobResult => {
+    const start = job.starts?.[fits.keys[i]];
+    const refit: FitControl = { signal: control.signal, inference: control.inference ?? 'none', ...(start ? { start: startOfDraws(start, job.groups, job.picks) } : {}) };
     try {
-      return { ok: true, outcome: fitModel(j.table, j.spec, { signal: control.signal }) };
+      return { ok: true, outcome: fitModel(j.table, j.spec, refit) };
     } catch (err) {
       if (err instanceof FitCancelled) throw err;
       return { ok: false, message: (err as Error).message };

@@ -11,7 +11,7 @@
  */
 import type { DataTable } from '../data/table';
 import { createRng } from '../demo/prng';
-import { FitCancelled } from '../engine/types';
+import { FitCancelled, type FitStart } from '../engine/types';
 import type { ModelSpec } from '../model/spec';
 import { compositeLog } from './composite-log';
 import { groupFits, inThreadReplicates, replicatesOverFits, type ReplicateJob } from './composite-replicate';
@@ -21,6 +21,7 @@ import { inThreadRunner, type FitRunner } from './fit-runner';
 import { annualLogIndices, indexRows } from './indices';
 import type { IndexRow } from './interval';
 import { percentileLimits } from './percentile';
+import { startOfFit } from './refit-start';
 import { drawSites, rowsBySite } from './resample-sites';
 import { annualTrendSpec } from './trend-specs';
 
@@ -57,8 +58,11 @@ export async function compositeTrend(table: DataTable, spec: ModelSpec, by: stri
   const point = groupFits(table, by, annual);
   progress(0, 1, 'fitting each species');
   const fitted = await runner(point.jobs, { signal: options.signal });
+  // The refits of the bootstrap start from these fits.
+  const starts: Record<string, FitStart> = {};
   const species = fitted.map((f, i) => {
     if (!f.ok) throw new TrendError('species-fit-failed', `The trend for ${by} "${point.keys[i]}" could not be fitted: ${f.message}`);
+    starts[point.keys[i]] = startOfFit(f.outcome);
     return { key: point.keys[i], log: annualLogIndices(point.tables[i], annual(point.keys[i]), f.outcome, options.base) };
   });
   const base = species[0].log.base;
@@ -71,7 +75,7 @@ export async function compositeTrend(table: DataTable, spec: ModelSpec, by: stri
   const levels = species[0].log.time.levels;
   const jobs: ReplicateJob[] = [];
   for (let r = 0; r < R; r++) {
-    jobs.push({ table, site, by, groups, picks: drawSites(groups, rng), specs: own, common, species: point.keys.length, weights, base, levels });
+    jobs.push({ table, site, by, groups, picks: drawSites(groups, rng), specs: own, common, species: point.keys.length, weights, base, levels, starts });
   }
   const replicates = runner.replicates ?? (options.runner ? replicatesOverFits(runner) : inThreadReplicates);
   const done = await replicates(jobs, { signal: options.signal, onDone: (d, n) => progress(d, n, 'bootstrap refits') });

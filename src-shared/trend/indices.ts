@@ -40,8 +40,12 @@ export function annualWeights(outcome: Pick<FitOutcome, 'betaNames'>, time: Time
   return out;
 }
 
-/** Log indices from an annual fit; `base` (default the fit's own base) may be any season. */
-export function annualLogIndices(table: DataTable, spec: ModelSpec, outcome: FitOutcome, base?: number | string): LogIndices {
+/**
+ * Log indices from an annual fit; `base` (default the fit's own base) may be
+ * any season. With `se: false` the fit's covariance may be empty of
+ * numbers (a fit without inference, NaN) and the SEs are NaN.
+ */
+export function annualLogIndices(table: DataTable, spec: ModelSpec, outcome: FitOutcome, base?: number | string, options: { se?: boolean } = {}): LogIndices {
   const time = timeLevels(table, spec, outcome);
   const reference = fittedBase(time, spec);
   const b = base === undefined ? reference : resolveLevel(time, base);
@@ -50,7 +54,7 @@ export function annualLogIndices(table: DataTable, spec: ModelSpec, outcome: Fit
   time.levels.forEach((level, i) => {
     const e = level === b ? { estimate: 0, se: 0 } : contrast(outcome, annualWeights(outcome, time, reference, level, b));
     log[i] = e.estimate;
-    se[i] = e.se;
+    se[i] = options.se === false ? Number.NaN : e.se;
   });
   return { time, base: b, log, se };
 }

@@ -37,6 +37,21 @@ export function resampleSites(table: DataTable, siteColumn: string, groups: { si
   return tableOfSites(table, siteColumn, groups, drawSites(groups, rng));
 }
 
+/** The site label of draw k (0-based) of `site` in tableOfSites. */
+function drawLabel(site: string, k: number): string {
+  return `${site}~${k + 1}`;
+}
+
+/** Per-site values of the full data (e.g. site effects) under the labels tableOfSites gives the draws. */
+export function valuesOfDraws(values: ReadonlyMap<string, number>, groups: { sites: string[] }, picks: readonly number[]): Map<string, number> {
+  const out = new Map<string, number>();
+  picks.forEach((s, k) => {
+    const v = values.get(groups.sites[s]);
+    if (v !== undefined) out.set(drawLabel(groups.sites[s], k), v);
+  });
+  return out;
+}
+
 /** The table of the drawn sites (`picks` from drawSites), each draw a site of its own. */
 export function tableOfSites(table: DataTable, siteColumn: string, groups: { sites: string[]; rows: number[][] }, picks: readonly number[]): DataTable {
   const rows: number[] = [];
@@ -44,7 +59,7 @@ export function tableOfSites(table: DataTable, siteColumn: string, groups: { sit
   picks.forEach((s, k) => {
     for (const r of groups.rows[s]) {
       rows.push(r);
-      labels.push(`${groups.sites[s]}~${k + 1}`);
+      labels.push(drawLabel(groups.sites[s], k));
     }
   });
   const picked = selectRows(table, rows);
