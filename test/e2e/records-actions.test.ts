@@ -62,6 +62,7 @@ describe('correcting a visit, converting units, reverting and recovering', () =>
       await effortCells(page).first().dblclick();
       await page.keyboard.type('-5');
       await page.keyboard.press('Enter');
+      await page.getByRole('alert').filter({ hasText: 'is not an effort' }).waitFor({ timeout: 15_000 });
       await expect(page.getByRole('alert').filter({ hasText: 'is not an effort' }).count()).resolves.toBe(1);
 
       // The true minutes, typed once with a reason, go to every record of the visit.

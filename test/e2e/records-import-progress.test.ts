@@ -40,7 +40,7 @@ describe('importing a big workbook', () => {
       const progress = page.getByTestId('import-progress');
       await progress.waitFor({ timeout: 30_000 });
       await expect(progress.textContent()).resolves.toContain('Importing season-visits.xlsx');
-      await page.getByTestId('cancel-import').click({ timeout: 5_000 });
+      await page.getByTestId('cancel-import').click({ timeout: 60_000, noWaitAfter: true });
       const note = page.getByTestId('import-note');
       await note.waitFor({ timeout: 60_000 });
       await expect(note.textContent()).resolves.toContain('The import of season-visits.xlsx was cancelled. Nothing of it was added');

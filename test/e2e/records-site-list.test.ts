@@ -114,7 +114,7 @@ describe('the site list of a programme', () => {
       await expect(area.isDisabled()).resolves.toBe(false);
       await area.check();
       await expect(page.getByLabel('Count part: habitat').count()).resolves.toBe(1);
-      for (const bookkeeping of ['visits', 'at_least_records', 'approximate_records', 'present_uncounted']) await expect(page.getByLabel(`Count part: ${bookkeeping}`).count()).resolves.toBe(0);
+      for (const bookkeeping of ['at_least_records', 'approximate_records', 'present_uncounted']) await expect(page.getByLabel(`Count part: ${bookkeeping}`).count()).resolves.toBe(0);
       await page.getByLabel('Distribution').selectOption('poisson');
       await page.getByTestId('fit-button').click();
       await page.getByTestId('comparison').locator('tbody tr').first().waitFor({ timeout: 120_000 });
