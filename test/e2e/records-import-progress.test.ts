@@ -9,7 +9,7 @@ import { writeVisitWorkbook } from '../import/visit-workbook';
 // project it was going into stays exactly as it was, with a note saying so;
 // imported again, it runs to the end. Invented data (visit-workbook.ts).
 
-const ROWS = 60_000;
+const ROWS = 150_000;
 const dir = mkdtempSync(join(tmpdir(), 'tw-import-progress-e2e-'));
 const small = join(dir, 'pilot-visits.csv');
 const big = join(dir, 'season-visits.xlsx');
@@ -23,7 +23,9 @@ afterAll(closeBrowser);
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
 describe('importing a big workbook', () => {
-  it('shows the stage and a bar, cancels leaving the project as it was, and imports to the end the second time', async () => {
+  // The cancel races the import: the services run in this same Node process, so on a quiet machine the
+  // import can end before the click gets through. A new app per attempt; every assertion stays as it is.
+  it('shows the stage and a bar, cancels leaving the project as it was, and imports to the end the second time', { retry: 2 }, async () => {
     const app = await openApp({ width: 1366, height: 768 });
     const { page } = app;
     try {
@@ -62,8 +64,8 @@ describe('importing a big workbook', () => {
       expect(bar).toBeGreaterThan(0);
       expect(bar).toBeLessThan(1);
       await app.screenshot('records-import-progress');
-      // Every visit row gives one record per species column: 2 × 60,000, plus the 6 already there.
-      await summary.filter({ hasText: '120,006 records from 2 workbooks' }).waitFor({ timeout: 180_000 });
+      // Every visit row gives one record per species column: 2 × ROWS, plus the 6 already there.
+      await summary.filter({ hasText: `${(2 * ROWS + 6).toLocaleString('en-US')} records from 2 workbooks` }).waitFor({ timeout: 180_000 });
       await expect(progress.count()).resolves.toBe(0);
       await app.screenshot('records-import-done');
       expect(app.consoleErrors).toEqual([]);
