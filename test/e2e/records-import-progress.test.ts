@@ -25,7 +25,7 @@ afterAll(() => rmSync(dir, { recursive: true, force: true }));
 describe('importing a big workbook', () => {
   // The cancel races the import: the services run in this same Node process, so on a quiet machine the
   // import can end before the click gets through. A new app per attempt; every assertion stays as it is.
-  it('shows the stage and a bar, cancels leaving the project as it was, and imports to the end the second time', { retry: 2 }, async () => {
+  it('shows the stage and a bar, cancels leaving the project as it was, and imports to the end the second time', { retry: 2, timeout: 400_000 }, async () => {
     const app = await openApp({ width: 1366, height: 768 });
     const { page } = app;
     try {
@@ -72,5 +72,5 @@ describe('importing a big workbook', () => {
     } finally {
       await app.close();
     }
-  }, 400_000);
+  });
 });
