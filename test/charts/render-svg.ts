@@ -1,15 +1,9 @@
 /** Renders an option with echarts' server-side SVG renderer, as the report does. */
-import * as echarts from 'echarts';
 import type { ChartOption } from '@shared/charts';
+import { renderChartSvg } from '../../src-main/report/svg';
 
 export function renderSvg(option: ChartOption, width = 800, height = 500): string {
-  const chart = echarts.init(null, null, { renderer: 'svg', ssr: true, width, height });
-  try {
-    chart.setOption(option);
-    return chart.renderToSVGString();
-  } finally {
-    chart.dispose();
-  }
+  return renderChartSvg(option, width, height);
 }
 
 /** Shapes filled with a colour (echarts writes fill="#rrggbb" in upper case as given). */
