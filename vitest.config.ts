@@ -26,6 +26,8 @@ export default defineConfig({
           testTimeout: 120_000,
           hookTimeout: 120_000,
           fileParallelism: false,
+          // A locator read inside expect.poll waits for its element like Playwright does; 1 s (vitest's default) is too short for an IPC round trip on a loaded machine.
+          expect: { poll: { timeout: 30_000 } },
         },
       },
     ],

@@ -15,12 +15,12 @@ describe('the app opens on the demo programme', () => {
       expect(await page.getByTestId('count-sites').textContent()).toBe(String(expected.sites.length));
       expect(await page.getByTestId('count-seasons').textContent()).toBe(String(expected.seasons.length));
       expect(await page.getByTestId('count-species').textContent()).toBe(String(expected.species.length));
-      for (const s of expected.species) await expect(page.getByRole('table', { name: 'Species' }).getByText(s.name, { exact: true }).count()).resolves.toBe(1);
+      for (const s of expected.species) await expect.poll(() => page.getByRole('table', { name: 'Species' }).getByText(s.name, { exact: true }).count()).toBe(1);
       const siteRows = await page.getByRole('table', { name: 'Sites' }).locator('tbody tr').count();
       expect(siteRows).toBe(expected.sites.length);
       const seasonRows = await page.getByRole('table', { name: 'Seasons' }).locator('tbody tr').count();
       expect(seasonRows).toBe(expected.seasons.length);
-      await expect(page.getByRole('complementary', { name: 'Cautions' }).textContent()).resolves.toMatch(/statistician/);
+      await expect.poll(() => page.getByRole('complementary', { name: 'Cautions' }).textContent()).toMatch(/statistician/);
       const shot = await app.screenshot('app-opens-demo');
       expect(existsSync(shot)).toBe(true);
       expect(app.consoleErrors).toEqual([]);

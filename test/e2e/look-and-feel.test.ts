@@ -97,7 +97,7 @@ async function recordsStage(app: AppSession, shot: string): Promise<void> {
   await expect.poll(() => grid.locator('.ag-cell-inline-editing').count()).toBe(1);
   await page.keyboard.press('Escape');
   await expect.poll(() => grid.locator('.ag-cell-inline-editing').count()).toBe(0);
-  await expect(page.getByTestId('records-summary').textContent()).resolves.toMatch(/0 changes in effect/);
+  await expect.poll(() => page.getByTestId('records-summary').textContent()).toMatch(/0 changes in effect/);
 
   // The findings list is reached with Tab after its filters; the ring shows inside the card.
   await page.getByRole('tab', { name: /Findings/ }).focus();
@@ -107,9 +107,9 @@ async function recordsStage(app: AppSession, shot: string): Promise<void> {
   // The side panel's tabs go along with Left and Right.
   await page.getByRole('tab', { name: /Findings/ }).focus();
   await page.keyboard.press('ArrowRight');
-  await expect(page.getByRole('tab', { name: /Changes/ }).getAttribute('aria-selected')).resolves.toBe('true');
+  await expect.poll(() => page.getByRole('tab', { name: /Changes/ }).getAttribute('aria-selected')).toBe('true');
   await page.keyboard.press('ArrowLeft');
-  await expect(page.getByRole('tab', { name: /Findings/ }).getAttribute('aria-selected')).resolves.toBe('true');
+  await expect.poll(() => page.getByRole('tab', { name: /Findings/ }).getAttribute('aria-selected')).toBe('true');
 
   // A dialog from the keyboard: the focus goes into it, Tab stays in it, Escape closes it and gives the focus back.
   const leaveOut = page.getByRole('button', { name: 'Leave out…' });
@@ -134,7 +134,7 @@ async function modelsStage(app: AppSession, shot: string): Promise<void> {
   const species = page.getByRole('checkbox', { name: toad.label, exact: true });
   await species.focus();
   await page.keyboard.press('Space');
-  await expect(species.isChecked()).resolves.toBe(true);
+  await expect.poll(() => species.isChecked()).toBe(true);
   await leaveOutRowsWithoutOffset(page);
   // The model written out and the Fit button are on screen without scrolling the builder.
   await expect(inViewport(page, page.getByTestId('model-equation'))).resolves.toBe(true);
@@ -169,12 +169,12 @@ async function modelsStage(app: AppSession, shot: string): Promise<void> {
   const speciesTab = page.getByRole('tab', { name: new RegExp(`^${toad.label}`) });
   await speciesTab.focus();
   await page.keyboard.press('ArrowRight');
-  await expect(speciesTab.getAttribute('aria-selected')).resolves.toBe('true');
+  await expect.poll(() => speciesTab.getAttribute('aria-selected')).toBe('true');
   // Choosing the model for the report from the keyboard: the radio of the negative binomial row.
   const use = page.getByRole('radio', { name: /Use "Negative binomial/ });
   await use.focus();
   await page.keyboard.press('Space');
-  await expect(use.isChecked()).resolves.toBe(true);
+  await expect.poll(() => use.isChecked()).toBe(true);
 
   await page.getByTestId('coefficients').scrollIntoViewIfNeeded();
   await app.screenshot(`${shot}-models-coefficients`);
@@ -188,7 +188,7 @@ async function modelsStage(app: AppSession, shot: string): Promise<void> {
   expect(charts.length).toBeGreaterThan(3);
   for (const c of charts) expect(c.canvas).toBeLessThanOrEqual(c.panel);
   // A chart point is not the only way to its records: the keyboard route is written beside the charts.
-  await expect(page.getByTestId('keyboard-route').textContent()).resolves.toMatch(/Records stage/);
+  await expect.poll(() => page.getByTestId('keyboard-route').textContent()).toMatch(/Records stage/);
 }
 
 async function reportStage(app: AppSession, shot: string): Promise<void> {

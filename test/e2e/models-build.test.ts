@@ -29,22 +29,22 @@ describe('the model builder', () => {
       await page.getByLabel('Interaction: first predictor').selectOption('habitat');
       await page.getByLabel('Interaction: second predictor').selectOption('visits');
       await page.getByRole('button', { name: 'Add interaction' }).click();
-      await expect(page.getByRole('button', { name: 'Remove the interaction habitat × visits' }).count()).resolves.toBe(1);
+      await expect.poll(() => page.getByRole('button', { name: 'Remove the interaction habitat × visits' }).count()).toBe(1);
       // The same pair cannot be added twice.
-      await expect(page.getByRole('button', { name: 'Add interaction' }).isDisabled()).resolves.toBe(true);
+      await expect.poll(() => page.getByRole('button', { name: 'Add interaction' }).isDisabled()).toBe(true);
       await page.getByLabel('Season term').selectOption('smooth');
 
       // Habitat belongs to the pond: beside a fixed site effect (the default) it cannot be estimated, and the builder says so.
       const problems = page.getByTestId('spec-problems');
-      await expect(problems.textContent()).resolves.toContain(`The predictor "habitat" does not change within any site in the ${toad.label} rows, so the fixed site effect (one term per site) takes it in`);
-      await expect(page.getByTestId('fit-button').isDisabled()).resolves.toBe(true);
+      await expect.poll(() => problems.textContent()).toContain(`The predictor "habitat" does not change within any site in the ${toad.label} rows, so the fixed site effect (one term per site) takes it in`);
+      await expect.poll(() => page.getByTestId('fit-button').isDisabled()).toBe(true);
       await page.getByLabel('Site effect').selectOption('random');
-      await expect(problems.count()).resolves.toBe(0);
+      await expect.poll(() => problems.count()).toBe(0);
 
       // The model is typeset: KaTeX's HTML with its MathML beside it, no KaTeX error box.
       const equation = page.getByTestId('model-equation');
-      await expect(equation.locator('.equation-line .katex .katex-html').count()).resolves.toBeGreaterThanOrEqual(2);
-      await expect(equation.locator('.katex-error').count()).resolves.toBe(0);
+      await expect.poll(() => equation.locator('.equation-line .katex .katex-html').count()).toBeGreaterThanOrEqual(2);
+      await expect.poll(() => equation.locator('.katex-error').count()).toBe(0);
       const mathText = async (selector: string) => (await equation.locator(`.equation-line ${selector}`).allTextContents()).join(' ');
       const names = await mathText('math mtext');
       for (const name of ['count', 'habitat', 'visits', 'season', 'effort', 'area', 'site']) expect(names).toContain(name);
@@ -75,7 +75,7 @@ describe('the model builder', () => {
       await expect(mathText('math mi')).resolves.toContain('logit');
       await expect(mathText('math mi')).resolves.toContain('π');
       await expect(mathText('math mi')).resolves.toContain('γ');
-      await expect(problems.textContent()).resolves.toContain('A random site effect is available only with the Poisson and negative binomial models');
+      await expect.poll(() => problems.textContent()).toContain('A random site effect is available only with the Poisson and negative binomial models');
       await equation.scrollIntoViewIfNeeded();
       await app.screenshot('models-build-zero-part');
       await page.getByLabel('Distribution').selectOption('negbin');
@@ -83,16 +83,16 @@ describe('the model builder', () => {
 
       // A curve with as many degrees of freedom as there are seasons cannot be fitted: said in plain words.
       await page.getByLabel('Degrees of freedom of the season curve').fill(String(seasons));
-      await expect(problems.textContent()).resolves.toContain(`asks for ${seasons} degrees of freedom, but the ${toad.label} rows come from only ${seasons} seasons; choose at most ${seasons - 1}`);
-      await expect(page.getByTestId('fit-button').isDisabled()).resolves.toBe(true);
+      await expect.poll(() => problems.textContent()).toContain(`asks for ${seasons} degrees of freedom, but the ${toad.label} rows come from only ${seasons} seasons; choose at most ${seasons - 1}`);
+      await expect.poll(() => page.getByTestId('fit-button').isDisabled()).toBe(true);
       await app.screenshot('models-build-check');
 
       await page.getByLabel('Degrees of freedom of the season curve').fill('4');
-      await expect(problems.count()).resolves.toBe(0);
+      await expect.poll(() => problems.count()).toBe(0);
       await page.getByTestId('fit-button').click();
       const row = page.getByTestId('comparison').locator('tbody tr');
       await row.first().waitFor({ timeout: 120_000 });
-      await expect(row.first().textContent()).resolves.toContain('habitat + visits + habitat × visits + smooth season (4 df), site random (9 pts)');
+      await expect.poll(() => row.first().textContent()).toContain('habitat + visits + habitat × visits + smooth season (4 df), site random (9 pts)');
       // The fit has the interaction's columns and the four spline columns (engine names, src-shared/engine/design/build.ts).
       const result = (await page.getByTestId('model-result').textContent()) ?? '';
       expect(result).toMatch(/habitat=[^&]+ & visits/);

@@ -85,7 +85,7 @@ describe('a large fit on the Models stage', () => {
       const backToModels = await clickStage(page, 'Models', '[data-testid="fit-progress"]');
       // Typing in a field of the builder: the model written out follows within a frame or two.
       const typing = await typeAndSee(page, 'Quadrature points', '12', '12-point adaptive');
-      await expect(page.getByLabel('Quadrature points').inputValue()).resolves.toBe('12');
+      await expect.poll(() => page.getByLabel('Quadrature points').inputValue()).toBe('12');
       console.log(`responses while fitting: to Programme ${Math.round(toProgramme)} ms, back to Models ${Math.round(backToModels)} ms, typing ${Math.round(typing)} ms`);
       expect(toProgramme).toBeLessThan(RESPONSE_MS);
       expect(backToModels).toBeLessThan(RESPONSE_MS);
@@ -96,9 +96,9 @@ describe('a large fit on the Models stage', () => {
 
       await page.getByTestId('cancel-fit').click();
       await progress.waitFor({ state: 'detached', timeout: 5_000 });
-      await expect(page.getByTestId('models-note').textContent()).resolves.toContain('cancelled');
-      await expect(rows.count()).resolves.toBe(1);
-      await expect(page.getByRole('tab').count()).resolves.toBe(1);
+      await expect.poll(() => page.getByTestId('models-note').textContent()).toContain('cancelled');
+      await expect.poll(() => rows.count()).toBe(1);
+      await expect.poll(() => page.getByRole('tab').count()).toBe(1);
       expect(await page.getByTestId('models-results').innerText()).toBe(resultsBefore);
       await app.screenshot('models-fit-cancelled');
 

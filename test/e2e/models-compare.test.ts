@@ -33,36 +33,36 @@ describe('the Models stage', () => {
       await page.getByRole('checkbox', { name: toad.label, exact: true }).check();
       // The model written out follows the choices (site effect fixed and season annual by default; effort offset in hours).
       const equation = page.getByTestId('model-equation');
-      await expect(equation.textContent()).resolves.toContain('effort in hours (column effort_h)');
+      await expect.poll(() => equation.textContent()).toContain('effort in hours (column effort_h)');
       await page.getByRole('checkbox', { name: /^area/ }).check();
-      await expect(equation.textContent()).resolves.toContain('area in ha (column area_ha)');
+      await expect.poll(() => equation.textContent()).toContain('area in ha (column area_ha)');
       // The demo's sheets have planted slips (a blank effort cell, pond names misspelt, so their area is unknown):
       // the fit is refused with the place named, until the analyst cleans them or leaves those rows out.
       const problems = page.getByTestId('spec-problems');
-      await expect(problems.textContent()).resolves.toMatch(/Effort \(hours\) is zero or missing in \d+ Common toad rows? \([^)]*\d{4}/);
-      await expect(page.getByTestId('fit-button').isDisabled()).resolves.toBe(true);
+      await expect.poll(() => problems.textContent()).toMatch(/Effort \(hours\) is zero or missing in \d+ Common toad rows? \([^)]*\d{4}/);
+      await expect.poll(() => page.getByTestId('fit-button').isDisabled()).toBe(true);
       await app.screenshot('models-builder');
       await page.getByRole('checkbox', { name: /leave out rows where an offset is missing/ }).check();
-      await expect(problems.count()).resolves.toBe(0);
+      await expect.poll(() => problems.count()).toBe(0);
 
       await fit(page, 'poisson', 1);
       await fit(page, 'negbin', 2);
 
       const rows = page.getByTestId('comparison').locator('tbody tr');
-      await expect(rows.count()).resolves.toBe(2);
+      await expect.poll(() => rows.count()).toBe(2);
       // ΔAIC is 0 on the best row: the negative binomial (the demo's counts are NB, theta = toad.theta).
       const nb = page.locator('[data-testid="comparison"] tr[data-distribution="negbin"]');
       const poisson = page.locator('[data-testid="comparison"] tr[data-distribution="poisson"]');
-      await expect(nb.getAttribute('data-delta-aic')).resolves.toBe('0');
+      await expect.poll(() => nb.getAttribute('data-delta-aic')).toBe('0');
       expect(Number(await poisson.getAttribute('data-delta-aic'))).toBeGreaterThan(10);
       expect(toad.theta).toBeLessThan(10);
       const lr = await page.getByTestId('lr-test').textContent();
       expect(lr).toMatch(/boundary-corrected p < 0\.001/);
-      await expect(page.getByTestId('reading').textContent()).resolves.toMatch(/By AIC, "Negative binomial[^"]*" fits clearly better/);
+      await expect.poll(() => page.getByTestId('reading').textContent()).toMatch(/By AIC, "Negative binomial[^"]*" fits clearly better/);
       // The app never picks the report model by itself.
-      await expect(page.getByTestId('report-choice').textContent()).resolves.toContain('No model is chosen');
+      await expect.poll(() => page.getByTestId('report-choice').textContent()).toContain('No model is chosen');
       await page.getByRole('radio', { name: /Use "Negative binomial/ }).check();
-      await expect(page.getByTestId('report-choice').textContent()).resolves.toContain('Chosen for the report: Negative binomial');
+      await expect.poll(() => page.getByTestId('report-choice').textContent()).toContain('Chosen for the report: Negative binomial');
 
       // The negative binomial's theta is shown and plausible against the truth. The visit counts have size
       // toad.theta; the stage sums 2 to 4 visits per pond and season, and a sum of negative binomials with a
@@ -81,7 +81,7 @@ describe('the Models stage', () => {
       expect(Number(await freq.getAttribute('data-points'))).toBeGreaterThan(10);
       // Every chart of the set is drawn (none replaced by a problem note).
       for (const id of ['rootogram', 'residuals', 'qq', 'mean-variance', 'zeros']) {
-        await expect(page.getByTestId(`chart-${id}`).locator('canvas').count()).resolves.toBeGreaterThan(0);
+        await expect.poll(() => page.getByTestId(`chart-${id}`).locator('canvas').count()).toBeGreaterThan(0);
       }
       // A chart can be saved as SVG (a download of SVG text).
       const [download] = await Promise.all([page.waitForEvent('download'), page.getByTestId('chart-zeros').getByRole('button', { name: 'Save SVG' }).click()]);

@@ -34,7 +34,7 @@ async function gridRows(page: Page): Promise<{ site: string; season: string; spe
 
 async function linkedLabel(page: Page): Promise<string> {
   const select = page.getByLabel('Filter by flag');
-  await expect(select.inputValue()).resolves.toBe('linked');
+  await expect.poll(() => select.inputValue()).toBe('linked');
   return (await select.locator('option[value="linked"]').textContent()) ?? '';
 }
 
@@ -78,7 +78,7 @@ describe('the diagnostic charts', () => {
       const influence = await seriesOf(page, 'influence');
       expect(influence.map((s) => s.id)).toEqual(['change']);
       await expect(categoriesOf(page, 'influence')).resolves.toEqual(sites);
-      for (const id of ['frequencies', 'rootogram', 'zeros']) await expect(page.getByTestId(`chart-${id}`).locator('canvas').count()).resolves.toBeGreaterThan(0);
+      for (const id of ['frequencies', 'rootogram', 'zeros']) await expect.poll(() => page.getByTestId(`chart-${id}`).locator('canvas').count()).toBeGreaterThan(0);
 
       await page.getByTestId('chart-residuals-site').scrollIntoViewIfNeeded();
       await app.screenshot('models-diagnostics-residuals');
@@ -105,7 +105,7 @@ describe('the diagnostic charts', () => {
       expect(rows.length).toBeGreaterThanOrEqual(1);
       expect(rows.length).toBeLessThanOrEqual(8);
       for (const r of rows) expect(r).toEqual({ site: m![1], season: m![2], species: toad.label });
-      await expect(page.getByTestId('records-shown').textContent()).resolves.toMatch(new RegExp(`^Showing ${rows.length} of`));
+      await expect.poll(() => page.getByTestId('records-shown').textContent()).toMatch(new RegExp(`^Showing ${rows.length} of`));
       await app.screenshot('records-linked-residual');
 
       // A click on the bar of the most influential site lands on that site's toad records of every season.

@@ -60,13 +60,13 @@ describe('models saved in the project', () => {
       const rows = p2.getByTestId('comparison').locator('tbody tr');
       await rows.nth(1).waitFor({ timeout: 90_000 });
       await p2.getByTestId('saved-models').waitFor({ state: 'detached', timeout: 90_000 });
-      await expect(rows.count()).resolves.toBe(2);
-      await expect(p2.getByTestId('report-choice').textContent()).resolves.toContain('Chosen for the report: Negative binomial');
-      await expect(p2.getByRole('radio', { name: /Use "Negative binomial/ }).isChecked()).resolves.toBe(true);
-      await expect(p2.getByTestId('stale-banner').count()).resolves.toBe(0);
+      await expect.poll(() => rows.count()).toBe(2);
+      await expect.poll(() => p2.getByTestId('report-choice').textContent()).toContain('Chosen for the report: Negative binomial');
+      await expect.poll(() => p2.getByRole('radio', { name: /Use "Negative binomial/ }).isChecked()).toBe(true);
+      await expect.poll(() => p2.getByTestId('stale-banner').count()).toBe(0);
       // Fitting again the same data changes nothing to save, and no autosave outlived the save.
-      await expect(p2.getByTestId('unsaved-mark').count()).resolves.toBe(0);
-      await expect(p2.getByText('Unsaved work was kept').count()).resolves.toBe(0);
+      await expect.poll(() => p2.getByTestId('unsaved-mark').count()).toBe(0);
+      await expect.poll(() => p2.getByText('Unsaved work was kept').count()).toBe(0);
       await again.screenshot('models-reopened');
       expect(again.consoleErrors).toEqual([]);
     } finally {
@@ -89,10 +89,10 @@ describe('models saved in the project', () => {
       await page.getByTestId('saved-models').waitFor({ state: 'detached', timeout: 120_000 });
       await tabs.filter({ hasText: natter.label }).click();
       const rows = page.getByTestId('comparison').locator('tbody tr');
-      await expect(rows.count()).resolves.toBe(2);
-      await expect(page.getByTestId('report-choice').textContent()).resolves.toContain('Chosen for the report: Zero-inflated negative binomial');
+      await expect.poll(() => rows.count()).toBe(2);
+      await expect.poll(() => page.getByTestId('report-choice').textContent()).toContain('Chosen for the report: Zero-inflated negative binomial');
       // Opening the demo is not a change of the analyst's: nothing unsaved until they change something.
-      await expect(page.getByTestId('unsaved-mark').count()).resolves.toBe(0);
+      await expect.poll(() => page.getByTestId('unsaved-mark').count()).toBe(0);
       await app.screenshot('models-demo-recorded');
       expect(app.consoleErrors).toEqual([]);
     } finally {

@@ -53,7 +53,7 @@ describe('models and the cleaned records', () => {
       await page.getByTestId('fit-button').click();
       const row = page.getByTestId('comparison').locator('tbody tr');
       await row.first().waitFor({ timeout: 60_000 });
-      await expect(page.getByTestId('stale-banner').count()).resolves.toBe(0);
+      await expect.poll(() => page.getByTestId('stale-banner').count()).toBe(0);
 
       // Undo the merge: the cleaned records change, the model is out of date until it is fitted again.
       await page.getByRole('navigation', { name: 'Work stages' }).getByRole('button', { name: 'Records' }).click();
@@ -61,11 +61,11 @@ describe('models and the cleaned records', () => {
       await app.command('undo-change');
       await models.click();
       await page.getByTestId('stale-banner').waitFor();
-      await expect(row.first().textContent()).resolves.toContain('out of date');
+      await expect.poll(() => row.first().textContent()).toContain('out of date');
       await app.screenshot('models-out-of-date');
       await page.getByTestId('stale-banner').getByRole('button', { name: 'Fit them again' }).click();
       await page.getByTestId('stale-banner').waitFor({ state: 'detached', timeout: 60_000 });
-      await expect(row.count()).resolves.toBe(1);
+      await expect.poll(() => row.count()).toBe(1);
       expect(app.consoleErrors).toEqual([]);
     } finally {
       await app.close();

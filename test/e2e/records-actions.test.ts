@@ -45,13 +45,13 @@ describe('correcting a visit, converting units, reverting and recovering', () =>
       await app.command('import-workbook');
       const problem = page.getByTestId('problem');
       await problem.waitFor();
-      await expect(problem.textContent()).resolves.toMatch(/field-notes\.pdf[\s\S]*\.xlsx/);
+      await expect.poll(() => problem.textContent()).toMatch(/field-notes\.pdf[\s\S]*\.xlsx/);
       await app.screenshot('records-not-a-workbook');
 
       app.dialogs.opens.push(file);
       await app.command('import-workbook');
       await page.getByTestId('records-summary').waitFor();
-      await expect(problem.count()).resolves.toBe(0);
+      await expect.poll(() => problem.count()).toBe(0);
       const card = page.locator(`article[data-finding="effort-missing"][data-place="${missing.sheet}!${missing.column}${missing.row}"]`);
       await card.getByRole('button', { name: /Show \d+ records/ }).click();
       const perVisit = Number(/Showing (\d+) of/.exec((await page.getByTestId('records-shown').textContent()) ?? '')?.[1]);
@@ -63,7 +63,7 @@ describe('correcting a visit, converting units, reverting and recovering', () =>
       await page.keyboard.type('-5');
       await page.keyboard.press('Enter');
       await page.getByRole('alert').filter({ hasText: 'is not an effort' }).waitFor({ timeout: 15_000 });
-      await expect(page.getByRole('alert').filter({ hasText: 'is not an effort' }).count()).resolves.toBe(1);
+      await expect.poll(() => page.getByRole('alert').filter({ hasText: 'is not an effort' }).count()).toBe(1);
 
       // The true minutes, typed once with a reason, go to every record of the visit.
       await page.getByLabel('Reason for the next changes').fill('read off the field card');
@@ -116,7 +116,7 @@ describe('correcting a visit, converting units, reverting and recovering', () =>
       await p2.getByTestId('records-summary').waitFor();
       expect(await p2.getByTestId('records-summary').textContent()).toBe(summary);
       expect(await logRows(p2)).toEqual(entries);
-      await expect(p2.getByTestId('unsaved-mark').count()).resolves.toBe(1);
+      await expect.poll(() => p2.getByTestId('unsaved-mark').count()).toBe(1);
       expect(again.consoleErrors).toEqual([]);
     } finally {
       await again.close();

@@ -93,8 +93,8 @@ describe('cleaning imported season workbooks', () => {
       for (const p of [variant, repeat, bound, textDate]) {
         const card = await findingFor(page, p);
         await expect(card.count(), `${p.kind} at ${p.sheet} row ${p.row}`).resolves.toBe(1);
-        await expect(card.locator('.finding-place').textContent()).resolves.toContain(`${p.sheet}, row ${p.row}`);
-        await expect(card.locator('.finding-file').textContent()).resolves.toBe(p.file);
+        await expect.poll(() => card.locator('.finding-place').textContent()).toContain(`${p.sheet}, row ${p.row}`);
+        await expect.poll(() => card.locator('.finding-file').textContent()).toBe(p.file);
       }
       expect(await siteOptions(page)).toContain(variant.found);
 
@@ -108,7 +108,7 @@ describe('cleaning imported season workbooks', () => {
       const repeatCard = await findingFor(page, repeat);
       await repeatCard.getByRole('button', { name: 'Leave this copy out' }).click();
       const dialog = page.getByRole('dialog');
-      await expect(dialog.getByLabel('Reason').inputValue()).resolves.toContain(`Repeats row ${repeat.row - 1}`);
+      await expect.poll(() => dialog.getByLabel('Reason').inputValue()).toContain(`Repeats row ${repeat.row - 1}`);
       await app.screenshot('records-leave-out-dialog');
       await dialog.getByRole('button', { name: 'Leave out' }).click();
       await page.getByTestId('records-summary').filter({ hasText: /· [1-9]\d* left out/ }).waitFor();
@@ -122,11 +122,11 @@ describe('cleaning imported season workbooks', () => {
       await page.keyboard.type(String(bound.cleanValue));
       await page.keyboard.press('Enter');
       await expect.poll(async () => (await cell.textContent())?.trim()).toBe(String(bound.cleanValue));
-      await expect(cell.getAttribute('class')).resolves.toContain('is-edited');
+      await expect.poll(() => cell.getAttribute('class')).toContain('is-edited');
       await app.screenshot('records-edited');
       await page.keyboard.press('Control+z');
       await expect.poll(async () => (await cell.textContent())?.trim()).toBe(lowerBound);
-      await expect(cell.getAttribute('class')).resolves.not.toContain('is-edited');
+      await expect.poll(() => cell.getAttribute('class')).not.toContain('is-edited');
 
       before = await logState(page);
       expect(before.map((e) => [e.id, e.kind, e.status])).toEqual([
@@ -137,7 +137,7 @@ describe('cleaning imported season workbooks', () => {
       await app.screenshot('records-change-log');
 
       // Save through the menu; the save dialog is answered with a path.
-      await expect(page.getByTestId('unsaved-mark').count()).resolves.toBe(1);
+      await expect.poll(() => page.getByTestId('unsaved-mark').count()).toBe(1);
       savedPath = join(dir, 'cleaned-seasons.tallywise');
       app.dialogs.saves.push(savedPath);
       await app.command('save-project');
@@ -157,7 +157,7 @@ describe('cleaning imported season workbooks', () => {
       again.dialogs.opens.push(savedPath);
       await again.command('open-project');
       await p2.getByTestId('records-summary').filter({ hasText: 'from 2 workbooks' }).waitFor();
-      await expect(p2.getByTestId('programme-title').textContent()).resolves.toBe('cleaned-seasons');
+      await expect.poll(() => p2.getByTestId('programme-title').textContent()).toBe('cleaned-seasons');
       expect(await p2.getByTestId('records-summary').textContent()).toBe(beforeSummary);
       expect(await siteOptions(p2)).toEqual(beforeSites);
       expect(await logState(p2)).toEqual(before);

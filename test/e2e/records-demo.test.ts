@@ -25,7 +25,7 @@ describe('the demo project', () => {
       expect(text).toContain(`${new Intl.NumberFormat('en-GB').format(expected)} records`);
       const open = Number(/(\d+) findings? still open/.exec(text)?.[1]);
       expect(open).toBeGreaterThanOrEqual(planted.length);
-      await expect(app.page.getByTestId('programme-title').textContent()).resolves.toBe(overview.programme);
+      await expect.poll(() => app.page.getByTestId('programme-title').textContent()).toBe(overview.programme);
       await app.screenshot('records-demo-project');
       expect(app.consoleErrors).toEqual([]);
     } finally {

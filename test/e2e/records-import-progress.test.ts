@@ -41,22 +41,22 @@ describe('importing a big workbook', () => {
       await app.command('import-workbook');
       const progress = page.getByTestId('import-progress');
       await progress.waitFor({ timeout: 30_000 });
-      await expect(progress.textContent()).resolves.toContain('Importing season-visits.xlsx');
+      await expect.poll(() => progress.textContent()).toContain('Importing season-visits.xlsx');
       await page.getByTestId('cancel-import').click({ timeout: 60_000, noWaitAfter: true });
       const note = page.getByTestId('import-note');
       await note.waitFor({ timeout: 60_000 });
-      await expect(note.textContent()).resolves.toContain('The import of season-visits.xlsx was cancelled. Nothing of it was added');
-      await expect(progress.count()).resolves.toBe(0);
-      await expect(page.getByTestId('problem').count()).resolves.toBe(0);
+      await expect.poll(() => note.textContent()).toContain('The import of season-visits.xlsx was cancelled. Nothing of it was added');
+      await expect.poll(() => progress.count()).toBe(0);
+      await expect.poll(() => page.getByTestId('problem').count()).toBe(0);
       // The project is as it was: the same summary, the same grid, still one workbook.
-      await expect(summary.textContent()).resolves.toBe(before);
-      await expect(page.getByRole('row').count()).resolves.toBe(gridRowsBefore);
+      await expect.poll(() => summary.textContent()).toBe(before);
+      await expect.poll(() => page.getByRole('row').count()).toBe(gridRowsBefore);
       await app.screenshot('records-import-cancelled');
 
       app.dialogs.opens.push(big);
       await app.command('import-workbook');
       await progress.waitFor({ timeout: 30_000 });
-      await expect(note.count()).resolves.toBe(0);
+      await expect.poll(() => note.count()).toBe(0);
       // The stage in words and the bar, as the host reports them.
       const text = page.getByTestId('import-progress-text');
       await text.filter({ hasText: /reading sheet 1 of 2 \("Visits"\), [\d,]+ rows so far/ }).waitFor({ timeout: 60_000 });
@@ -66,7 +66,7 @@ describe('importing a big workbook', () => {
       await app.screenshot('records-import-progress');
       // Every visit row gives one record per species column: 2 × ROWS, plus the 6 already there.
       await summary.filter({ hasText: `${(2 * ROWS + 6).toLocaleString('en-US')} records from 2 workbooks` }).waitFor({ timeout: 180_000 });
-      await expect(progress.count()).resolves.toBe(0);
+      await expect.poll(() => progress.count()).toBe(0);
       await app.screenshot('records-import-done');
       expect(app.consoleErrors).toEqual([]);
     } finally {

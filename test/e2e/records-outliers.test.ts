@@ -44,8 +44,8 @@ describe('model outlier flags', () => {
       // A threshold that is not a probability is refused, with the fix said; the flags stay as they were.
       const input = page.getByLabel('Outlier tail probability');
       await input.fill('0.7');
-      await expect(page.getByTestId('outlier-controls').getByRole('alert').textContent()).resolves.toMatch(/between 0 and 0\.5/);
-      await expect(page.getByTestId('outlier-controls').getByRole('button', { name: 'Apply' }).isDisabled()).resolves.toBe(true);
+      await expect.poll(() => page.getByTestId('outlier-controls').getByRole('alert').textContent()).toMatch(/between 0 and 0\.5/);
+      await expect.poll(() => page.getByTestId('outlier-controls').getByRole('button', { name: 'Apply' }).isDisabled()).toBe(true);
       // A stricter threshold flags no more totals.
       await input.fill('0.0001');
       await page.getByTestId('outlier-controls').getByRole('button', { name: 'Apply' }).click();
@@ -57,8 +57,8 @@ describe('model outlier flags', () => {
 
       // To the grid: the "model outliers" filter, every shown record carrying the flag with its probability.
       await page.getByTestId('outlier-controls').getByRole('button', { name: /^Show the \d+ flagged totals? in Records/ }).click();
-      await expect(page.getByLabel('Filter by flag').inputValue()).resolves.toBe('model-outliers');
-      await expect(page.getByTestId('linked-note').textContent()).resolves.toMatch(new RegExp(`behind the ${strict.flagged} season totals of ${toad.label}`));
+      await expect.poll(() => page.getByLabel('Filter by flag').inputValue()).toBe('model-outliers');
+      await expect.poll(() => page.getByTestId('linked-note').textContent()).toMatch(new RegExp(`behind the ${strict.flagged} season totals of ${toad.label}`));
       const chips = page.getByTestId('records-grid').locator('.ag-row .chip-model');
       await chips.first().waitFor({ timeout: 30_000 });
       const seen = await chips.evaluateAll((els) => els.map((e) => ({ p: Number(e.getAttribute('data-probability')), text: e.textContent ?? '', title: e.getAttribute('title') ?? '' })));
@@ -75,21 +75,21 @@ describe('model outlier flags', () => {
       const list = page.getByTestId('model-flags');
       await list.locator('summary').click();
       const items = list.locator('li');
-      await expect(items.count()).resolves.toBe(strict.flagged);
+      await expect.poll(() => items.count()).toBe(strict.flagged);
       const first = (await items.first().textContent()) ?? '';
       const m = /^(.+), (\d{4}): total (\d+), expected [\d.e+-]+, p [=<] /.exec(first);
       expect(m, first).not.toBeNull();
       await items.first().getByRole('button', { name: 'Show visits' }).focus();
       await page.keyboard.press('Enter');
-      await expect(page.getByTestId('linked-note').textContent()).resolves.toContain(`${toad.label} at ${m![1]}, season ${m![2]} (a model flag)`);
+      await expect.poll(() => page.getByTestId('linked-note').textContent()).toContain(`${toad.label} at ${m![1]}, season ${m![2]} (a model flag)`);
       const sites = await page.getByTestId('records-grid').locator('.ag-row .ag-cell[col-id="site"]').allTextContents();
       expect(new Set(sites.map((t) => t.trim()))).toEqual(new Set([m![1]]));
       await app.screenshot('records-model-flags');
       // Flags never leave anything out: every record is still in, none marked left out.
       const total = /^([\d,]+) records/.exec((await page.getByTestId('records-summary').textContent()) ?? '')![1];
       await page.getByTestId('linked-note').getByRole('button', { name: 'Show all records' }).click();
-      await expect(page.getByTestId('records-shown').textContent()).resolves.toMatch(new RegExp(`^Showing ${total} of ${total} records`));
-      await expect(page.getByTestId('records-summary').textContent()).resolves.toContain('0 left out');
+      await expect.poll(() => page.getByTestId('records-shown').textContent()).toMatch(new RegExp(`^Showing ${total} of ${total} records`));
+      await expect.poll(() => page.getByTestId('records-summary').textContent()).toContain('0 left out');
       expect(app.consoleErrors).toEqual([]);
     } finally {
       await app.close();

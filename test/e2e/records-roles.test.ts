@@ -22,13 +22,13 @@ describe('choosing column roles by hand', () => {
       await app.command('import-workbook');
       const dialog = page.getByRole('dialog', { name: /Which column is which in ridge-tallies\.csv/ });
       await dialog.waitFor();
-      await expect(dialog.textContent()).resolves.toContain('"Where"');
+      await expect.poll(() => dialog.textContent()).toContain('"Where"');
       const submit = dialog.getByRole('button', { name: 'Import with these columns' });
-      await expect(submit.isDisabled()).resolves.toBe(true);
-      await expect(dialog.getByRole('status').textContent()).resolves.toMatch(/site/);
+      await expect.poll(() => submit.isDisabled()).toBe(true);
+      await expect.poll(() => dialog.getByRole('status').textContent()).toMatch(/site/);
       await dialog.getByLabel('Part of column Where').selectOption('site');
       await dialog.getByLabel('Part of column When').selectOption('date');
-      await expect(dialog.getByRole('status').textContent()).resolves.toMatch(/count columns/);
+      await expect.poll(() => dialog.getByRole('status').textContent()).toMatch(/count columns/);
       await dialog.getByLabel('Part of column Tally A').selectOption('speciesColumn');
       await dialog.getByLabel('Part of column Tally B').selectOption('speciesColumn');
       await app.screenshot('records-roles-dialog');
@@ -37,7 +37,7 @@ describe('choosing column roles by hand', () => {
       expect(await page.getByLabel('Filter by site').locator('option').allTextContents()).toEqual(['All sites (2)', 'North ridge', 'South ridge']);
       expect(await page.getByLabel('Filter by species').locator('option').allTextContents()).toEqual(['All species (2)', 'Tally A', 'Tally B']);
       // Dates typed as text are the rule in a CSV, so they are not flagged one by one.
-      await expect(page.getByTestId('records-summary').textContent()).resolves.toContain('0 findings still open');
+      await expect.poll(() => page.getByTestId('records-summary').textContent()).toContain('0 findings still open');
       expect(app.consoleErrors).toEqual([]);
     } finally {
       await app.close();

@@ -71,39 +71,39 @@ describe('the site list of a programme', () => {
       // The import kept the Sites sheet, which reads as a site list.
       const suggestion = page.getByTestId('site-list-suggestion');
       await suggestion.waitFor({ timeout: 30_000 });
-      await expect(suggestion.textContent()).resolves.toContain('Sheet “Sites” of pond-survey.xlsx looks like a site list');
+      await expect.poll(() => suggestion.textContent()).toContain('Sheet “Sites” of pond-survey.xlsx looks like a site list');
       await suggestion.getByRole('button', { name: 'Link it…' }).click();
       const dialog = page.getByRole('dialog', { name: /Site list/ });
       await dialog.waitFor();
       // The guess: headers in row 2 under the title, sites from "Site", area from "Area (ha)" in hectares.
-      await expect(dialog.getByLabel('Header row').inputValue()).resolves.toBe('2');
-      await expect(dialog.getByLabel('Site name column').inputValue()).resolves.toBe('Site');
-      await expect(dialog.getByLabel('Area column').inputValue()).resolves.toBe('Area (ha)');
-      await expect(dialog.getByLabel('Area unit').inputValue()).resolves.toBe('ha');
+      await expect.poll(() => dialog.getByLabel('Header row').inputValue()).toBe('2');
+      await expect.poll(() => dialog.getByLabel('Site name column').inputValue()).toBe('Site');
+      await expect.poll(() => dialog.getByLabel('Area column').inputValue()).toBe('Area (ha)');
+      await expect.poll(() => dialog.getByLabel('Area unit').inputValue()).toBe('ha');
       await dialog.getByRole('checkbox', { name: 'Habitat' }).check();
 
       // The mismatch: "Beck pool" (the 2024 records) is not in the list; "Gorse Pit" has no records.
-      await expect(dialog.getByTestId('site-list-match').textContent()).resolves.toContain("6 of the records' 7 sites are in the list (7 sites listed)");
+      await expect.poll(() => dialog.getByTestId('site-list-match').textContent()).toContain("6 of the records' 7 sites are in the list (7 sites listed)");
       const unmatched = dialog.getByTestId('site-list-unmatched');
-      await expect(unmatched.textContent()).resolves.toMatch(/“Beck pool” \(4 records\)/);
-      await expect(dialog.textContent()).resolves.toContain('no record names: “Gorse Pit”');
+      await expect.poll(() => unmatched.textContent()).toMatch(/“Beck pool” \(4 records\)/);
+      await expect.poll(() => dialog.textContent()).toContain('no record names: “Gorse Pit”');
       await app.screenshot('records-site-list-mismatch');
 
       // A wrong header row is refused in words, naming the row; back to row 2.
       await dialog.getByLabel('Header row').fill('1');
-      await expect(dialog.getByTestId('site-list-problem').textContent()).resolves.toMatch(/has no column "Site" in row 1/);
-      await expect(dialog.getByRole('button', { name: 'Use this site list' }).isDisabled()).resolves.toBe(true);
+      await expect.poll(() => dialog.getByTestId('site-list-problem').textContent()).toMatch(/has no column "Site" in row 1/);
+      await expect.poll(() => dialog.getByRole('button', { name: 'Use this site list' }).isDisabled()).toBe(true);
       await dialog.getByLabel('Header row').fill('2');
 
       await unmatched.getByRole('button', { name: 'Merge into “Beck Pool”' }).click();
       await expect.poll(() => dialog.getByTestId('site-list-match').textContent()).toContain("6 of the records' 6 sites are in the list");
-      await expect(dialog.getByTestId('site-list-unmatched').count()).resolves.toBe(0);
+      await expect.poll(() => dialog.getByTestId('site-list-unmatched').count()).toBe(0);
       await app.screenshot('records-site-list-fixed');
       await dialog.getByRole('button', { name: 'Use this site list' }).click();
-      await expect(page.getByTestId('site-list-linked').textContent()).resolves.toContain('Site list linked: sheet “Sites”');
-      await expect(page.getByTestId('unsaved-mark').count()).resolves.toBe(1);
+      await expect.poll(() => page.getByTestId('site-list-linked').textContent()).toContain('Site list linked: sheet “Sites”');
+      await expect.poll(() => page.getByTestId('unsaved-mark').count()).toBe(1);
       // The merge is in the change log, like any other cleaning edit.
-      await expect(page.getByTestId('records-summary').textContent()).resolves.toContain('1 change in effect');
+      await expect.poll(() => page.getByTestId('records-summary').textContent()).toContain('1 change in effect');
       await app.screenshot('records-site-list-linked');
 
       // The Models stage offers the area offset and the habitat, not the bookkeeping columns.
@@ -111,10 +111,10 @@ describe('the site list of a programme', () => {
       await page.getByTestId('models-summary').waitFor({ timeout: 60_000 });
       await page.getByRole('checkbox', { name: 'Smooth newt', exact: true }).check();
       const area = page.getByRole('checkbox', { name: /^area \(.*area_ha\)/ });
-      await expect(area.isDisabled()).resolves.toBe(false);
+      await expect.poll(() => area.isDisabled()).toBe(false);
       await area.check();
-      await expect(page.getByLabel('Count part: habitat').count()).resolves.toBe(1);
-      for (const bookkeeping of ['at_least_records', 'approximate_records', 'present_uncounted']) await expect(page.getByLabel(`Count part: ${bookkeeping}`).count()).resolves.toBe(0);
+      await expect.poll(() => page.getByLabel('Count part: habitat').count()).toBe(1);
+      for (const bookkeeping of ['at_least_records', 'approximate_records', 'present_uncounted']) await expect.poll(() => page.getByLabel(`Count part: ${bookkeeping}`).count()).toBe(0);
       await page.getByLabel('Distribution').selectOption('poisson');
       await page.getByTestId('fit-button').click();
       await page.getByTestId('comparison').locator('tbody tr').first().waitFor({ timeout: 120_000 });

@@ -56,11 +56,11 @@ describe('the Report stage right after opening a project', () => {
       for (const m of chosen) {
         const box = page.getByTestId(`report-species-${m.species}`);
         await expect.poll(() => box.isDisabled(), { timeout: 240_000 }).toBe(false);
-        await expect(box.locator('xpath=../..').textContent()).resolves.toContain(m.name);
+        await expect.poll(() => box.locator('xpath=../..').textContent()).toContain(m.name);
       }
       await expect.poll(() => page.getByTestId('background-fit').count(), { timeout: 240_000 }).toBe(0);
       // Fitting the unchanged models again is not a change to save.
-      await expect(page.getByTestId('unsaved-mark').count()).resolves.toBe(0);
+      await expect.poll(() => page.getByTestId('unsaved-mark').count()).toBe(0);
       await app.screenshot('report-after-open');
       expect(app.consoleErrors).toEqual([]);
     } finally {

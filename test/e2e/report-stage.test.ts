@@ -52,15 +52,15 @@ describe('the Report stage', () => {
       await page.getByRole('button', { name: 'Report' }).click();
       await page.getByRole('heading', { name: 'Report', level: 1 }).waitFor();
       // The two species with a chosen model can be reported; the others say why not and where to fix it.
-      for (const s of reported) await expect(page.getByRole('checkbox', { name: s, exact: true }).isChecked()).resolves.toBe(true);
+      for (const s of reported) await expect.poll(() => page.getByRole('checkbox', { name: s, exact: true }).isChecked()).toBe(true);
       const others = DEMO_TRUTH.species.filter((s) => !reported.includes(s.label));
-      for (const s of others) await expect(page.getByRole('checkbox', { name: s.label, exact: true }).isDisabled()).resolves.toBe(true);
-      await expect(page.getByTestId('report-species-why').first().textContent()).resolves.toMatch(/no model is chosen for the report.*Models stage/);
-      await expect(page.getByTestId('make-report').isDisabled()).resolves.toBe(true);
+      for (const s of others) await expect.poll(() => page.getByRole('checkbox', { name: s.label, exact: true }).isDisabled()).toBe(true);
+      await expect.poll(() => page.getByTestId('report-species-why').first().textContent()).toMatch(/no model is chosen for the report.*Models stage/);
+      await expect.poll(() => page.getByTestId('make-report').isDisabled()).toBe(true);
 
       app.dialogs.folders.push(folder);
       await page.getByRole('button', { name: 'Choose folder…' }).click();
-      await expect(page.getByTestId('report-folder').textContent()).resolves.toBe(folder);
+      await expect.poll(() => page.getByTestId('report-folder').textContent()).toBe(folder);
       // The folder is kept in the project: the project now has unsaved changes, and the stage says to save first.
       await page.getByTestId('unsaved-mark').waitFor();
       await page.getByTestId('report-unsaved').waitFor();
@@ -69,18 +69,18 @@ describe('the Report stage', () => {
       await app.command('save-project');
       await expect.poll(() => page.getByTestId('unsaved-mark').count(), { timeout: 30_000 }).toBe(0);
       if (!(await page.getByTestId('make-report').count())) await page.getByRole('button', { name: 'Report' }).click();
-      await expect(page.getByTestId('report-unsaved').count()).resolves.toBe(0);
+      await expect.poll(() => page.getByTestId('report-unsaved').count()).toBe(0);
 
       // Make it, see the progress, cancel: nothing is written and the screen is as before.
       await page.getByTestId('make-report').click();
       await page.getByTestId('report-progress-text').filter({ hasText: /Step \d of 3; now/ }).waitFor({ timeout: 30_000 });
       await app.screenshot('report-progress');
       await page.getByTestId('cancel-report').click();
-      await expect(page.getByTestId('report-note').textContent()).resolves.toMatch(/cancelled before any file was written/);
+      await expect.poll(() => page.getByTestId('report-note').textContent()).toMatch(/cancelled before any file was written/);
       await page.getByTestId('make-report').waitFor();
-      await expect(page.getByTestId('report-written').count()).resolves.toBe(0);
+      await expect.poll(() => page.getByTestId('report-written').count()).toBe(0);
       expect(readdirSync(folder).filter((f) => !f.startsWith('ponds.tallywise'))).toEqual([]);
-      for (const s of reported) await expect(page.getByRole('checkbox', { name: s, exact: true }).isChecked()).resolves.toBe(true);
+      for (const s of reported) await expect.poll(() => page.getByRole('checkbox', { name: s, exact: true }).isChecked()).toBe(true);
 
       // Again, to the end: progress reaches the composite, then the three files are listed.
       await page.getByTestId('make-report').click();
