@@ -31,8 +31,9 @@ import { clusterIndex, clusterSandwich } from './inference/sandwich';
 import { informationCriteria, logLikelihood, pearsonChi2, totalDeviance } from './inference/likelihood';
 import { scaleCovariance, waldRows } from './inference/wald';
 import { irls } from './irls';
+import { nullModelMeans } from './null-model';
 import type { ColumnStructure } from './linalg/dense';
-import { columnStructure, plainStructure } from './linalg/dense';
+import { columnStructure } from './linalg/dense';
 import { countTerms } from './model-terms';
 import { fitNegbin } from './negbin/fit';
 import { sanitizeSummary, warningSentences } from './summary';
@@ -142,29 +143,6 @@ function prepare(table: DataTable, spec: ModelSpec): Prepared {
   return { design, y, offset, rows, warnings, siteLevels, siteOfRow: siteIdx, structure };
 }
 
-/**
- * Means of the intercept-only model with the same offsets. Poisson-type: in
- * closed form, exp(offset) * sum(y) / sum(exp(offset)); negative binomial:
- * by IRLS at the model's theta, started from that.
- */
-function nullModelMeans(family: Family, y: Float64Array, offset: Float64Array | null, control: FitControl): Float64Array {
-  const n = y.length;
-  let sy = 0;
-  let se = 0;
-  for (let i = 0; i < n; i++) {
-    sy += y[i];
-    se += offset ? Math.exp(offset[i]) : 1;
-  }
-  const b0 = Math.log(Math.max(sy, 1e-300) / se);
-  if (family.name !== 'negbin') {
-    const mu = new Float64Array(n);
-    for (let i = 0; i < n; i++) mu[i] = Math.exp(b0 + (offset ? offset[i] : 0));
-    return mu;
-  }
-  const fit = irls({ x: new Float64Array(n).fill(1), n, p: 1, y, offset, family, startBeta: Float64Array.of(b0), structure: plainStructure(1), covariance: false, control: { ...control, onProgress: undefined } });
-  return fit.mu;
-}
-
 /** Fits a Poisson, quasi-Poisson or negative binomial model of the spec. */
 export function fitCountGlm(table: DataTable, spec: ModelSpec, control: FitControl = {}): FitOutcome {
   const dist = spec.distribution;
@@ -212,7 +190,7 @@ export function fitCountGlm(table: DataTable, spec: ModelSpec, control: FitContr
   const dispersion = pearson / dfResidual;
   // The fit's own deviance is at these means (and, for the negative binomial, the final theta).
   const deviance = fit.deviance;
-  const nullDeviance = inference ? totalDeviance(family, y, nullModelMeans(family, y, off, control)) : Number.NaN;
+  const nullDeviance = inference ? totalDeviance(family, y, nullModelMeans(y, off, family.name === 'negbin' ? theta : null)) : Number.NaN;
 
   // Covariance: model-based (scaled for quasi-Poisson) or site-clustered sandwich.
   let cov: Float64Array = inference ? Float64Array.from(fit.xtwxInverse) : new Float64Array(p * p).fill(Number.NaN);

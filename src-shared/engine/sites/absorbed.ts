@@ -15,7 +15,7 @@ import type { ModelSpec } from '../../model/spec';
 import { BOUNDARY_THETA_SENTENCE } from '../negbin/fit';
 import { wantsInference, type FitControl, type FitOutcome, type Warning } from '../types';
 import { fitAbsorbedCore } from './absorbed-core';
-import { absorbedNewton } from './absorbed-newton';
+import { nullModelMeans } from '../null-model';
 import { siteFrame } from './site-frame';
 import { pearsonChi2, totalDeviance } from '../inference/likelihood';
 import { waldRows } from '../inference/wald';
@@ -24,9 +24,7 @@ import { countFamily, siteSummary } from './site-summary';
 
 /** Deviance of the intercept-only model with the same offset and theta (theta null = Poisson). */
 export function nullDevianceWithOffset(y: Float64Array, offset: Float64Array, theta: number | null): number {
-  const n = y.length;
-  const fit = absorbedNewton({ y, x: new Float64Array(0), n, p: 0, offset, site: new Int32Array(n), nSites: 1, start: Int32Array.of(0, n) }, theta ?? Infinity, null);
-  return totalDeviance(countFamily(theta), y, fit.mu);
+  return totalDeviance(countFamily(theta), y, nullModelMeans(y, offset, theta));
 }
 
 function names(list: readonly string[], max = 10): string {
