@@ -43,6 +43,13 @@ export interface IrlsInput {
   readonly startAt?: { readonly eta: Float64Array; readonly mu: Float64Array };
   /** Scratch arrays of n numbers to use instead of fresh ones (one per fit in a sequence of fits). */
   readonly work?: IrlsWork;
+  /**
+   * Arrays of n numbers that become the result's eta, mu and weights (else
+   * fresh ones). A sequence of fits, each started where the last one ended,
+   * can pass the last result's own arrays (they may be startAt's): that
+   * result is then overwritten.
+   */
+  readonly into?: { readonly eta: Float64Array; readonly mu: Float64Array; readonly weights: Float64Array };
   /** The design's column structure, when the caller has it (else computed here). */
   readonly structure?: ColumnStructure;
   /** Compute (X'WX)^-1 at the end (default true); false leaves xtwxInverse empty. */
@@ -113,13 +120,13 @@ export function irls(input: IrlsInput): IrlsResult {
   // Indicator columns (intercept, factor levels, sites) are handled cell by cell.
   const structure = input.structure ?? columnStructure(x, n, p);
 
-  const eta = new Float64Array(n);
-  const mu = new Float64Array(n);
+  const eta = input.into?.eta ?? new Float64Array(n);
+  const mu = input.into?.mu ?? new Float64Array(n);
   let beta: Float64Array | null = null;
   if (input.startBeta && input.startAt) {
     beta = Float64Array.from(input.startBeta);
-    eta.set(input.startAt.eta);
-    mu.set(input.startAt.mu);
+    if (input.startAt.eta !== eta) eta.set(input.startAt.eta);
+    if (input.startAt.mu !== mu) mu.set(input.startAt.mu);
   } else if (input.startBeta) {
     beta = Float64Array.from(input.startBeta);
     matVec(x, n, p, beta, offset, eta, structure);
@@ -136,7 +143,7 @@ export function irls(input: IrlsInput): IrlsResult {
   }
 
   const { z, etaNew } = input.work ?? irlsWork(n);
-  const w = new Float64Array(n);
+  const w = input.into?.weights ?? new Float64Array(n);
   const xtwx = new Float64Array(p * p);
   const xtwz = new Float64Array(p);
   let converged = false;

@@ -55,7 +55,7 @@ export function matVec(
   p: number,
   b: ArrayLike<number>,
   offset: Float64Array | null,
-  out = new Float64Array(n),
+  out: Float64Array = new Float64Array(n),
   structure?: ColumnStructure,
 ): Float64Array {
   if (offset) out.set(offset);

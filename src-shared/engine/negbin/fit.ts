@@ -166,7 +166,8 @@ export function fitNegbin(input: NegbinInput): NegbinResult {
     }
     if (control.signal?.aborted) throw new FitCancelled();
     outer++;
-    fit = irls({ ...base, family: negbinFamily(th.theta), startBeta: fit.beta, startAt: fit, covariance: false });
+    // Each alternation's IRLS starts where the last ended and writes over its arrays.
+    fit = irls({ ...base, family: negbinFamily(th.theta), startBeta: fit.beta, startAt: fit, into: fit, covariance: false });
     iterations += fit.iterations;
     const t0 = th.theta;
     th = thetaML(y, fit.mu, { weights: pw, start: t0, table, se: false });
