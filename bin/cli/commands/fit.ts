@@ -2,7 +2,7 @@ import { resolve } from 'node:path';
 import { findColumn, type DataTable } from '@shared/data/table';
 import { rowList } from '@shared/engine/design/build';
 import { fitModel } from '@shared/engine/fit';
-import { FitCancelled, FitInputError } from '@shared/engine/types';
+import { FitInputError } from '@shared/engine/types';
 import type { ModelSpec } from '@shared/model/spec';
 import { fitGroupsOnPool } from '@shared/worker/fit-batch';
 import { planGroups, type Shard } from '@shared/worker/fit-groups';
@@ -15,6 +15,7 @@ import type { CliCommand } from '../command';
 import { fitAsText } from '../format/fit-text';
 import { readSpecFile } from '../spec-file';
 import { createFitPool, defaultJobs } from '../worker/fit-pool';
+import { interruptible } from '../interrupt';
 
 export const fit: CliCommand = {
   name: 'fit',
@@ -121,27 +122,24 @@ async function fitByGroup(table: DataTable, spec: ModelSpec, opts: { by: string;
   let attention = 0;
   let finished = 0;
   // Ctrl-C stops the workers at once; the lines already printed stay whole.
-  const stop = new AbortController();
-  const onInterrupt = () => stop.abort();
-  process.once('SIGINT', onInterrupt);
+  const stopped = () => `Stopped after ${finished} of ${plan.jobs.length} groups; the lines printed are complete, the other groups were not fitted.`;
   try {
-    await fitGroupsOnPool(pool, plan.jobs, spec, {
-      signal: stop.signal,
-      onResult(result, done, total) {
-        finished = done;
-        const line = groupLine(result);
-        io.out(JSON.stringify(line));
-        if (needsAttention(line)) attention++;
-        const status = 'error' in line ? `failed: ${line.error.message}` : line.fit.converged ? `converged (${line.fit.iterations} iterations)` : `did not converge in ${line.fit.iterations} iterations`;
-        io.err(`[${done}/${total}] ${line.group}: ${status}`);
-      },
+    const exit = await interruptible(io, stopped, async (signal) => {
+      await fitGroupsOnPool(pool, plan.jobs, spec, {
+        signal,
+        onResult(result, done, total) {
+          finished = done;
+          const line = groupLine(result);
+          io.out(JSON.stringify(line));
+          if (needsAttention(line)) attention++;
+          const status = 'error' in line ? `failed: ${line.error.message}` : line.fit.converged ? `converged (${line.fit.iterations} iterations)` : `did not converge in ${line.fit.iterations} iterations`;
+          io.err(`[${done}/${total}] ${line.group}: ${status}`);
+        },
+      });
+      return 0;
     });
-  } catch (err) {
-    if (!(err instanceof FitCancelled)) throw err;
-    io.err(`Stopped after ${finished} of ${plan.jobs.length} groups; the lines printed are complete, the other groups were not fitted.`);
-    return 130;
+    if (exit !== 0) return exit;
   } finally {
-    process.off('SIGINT', onInterrupt);
     pool.dispose();
   }
   if (attention) io.err(`${attention} of ${plan.jobs.length} group${plan.jobs.length > 1 ? 's' : ''} did not converge or could not be fitted; see their lines.`);

@@ -1,5 +1,4 @@
 import { resolve } from 'node:path';
-import { FitCancelled } from '@shared/engine/types';
 import { poissonTrendPower } from '@shared/trend/power-analytic';
 import { DEFAULT_DESIGN, designProblem, type PowerDesign } from '@shared/trend/power-design';
 import { designFromFit } from '@shared/trend/power-from-fit';
@@ -11,6 +10,7 @@ import { UsageError, type CliCommand } from '../command';
 import { fmt, layoutColumns } from '../format/number';
 import { readSpecFile } from '../spec-file';
 import { createFitPool, defaultJobs } from '../worker/fit-pool';
+import { interruptible } from '../interrupt';
 
 const d = DEFAULT_DESIGN;
 
@@ -74,34 +74,26 @@ export const power: CliCommand = {
     const jobs = num(args, 'jobs') ?? defaultJobs();
     const { pool, mode } = createFitPool(jobs);
     io.err(mode === 'threads' ? `Simulating on ${pool.size} worker thread${pool.size > 1 ? 's' : ''}.` : 'Simulating in this process, one fit at a time.');
-    const stop = new AbortController();
-    const onInterrupt = () => stop.abort();
-    process.once('SIGINT', onInterrupt);
     let lastTenth = -1;
     try {
-      const study = await powerStudy(design, grid, {
-        replicates,
-        seed: num(args, 'seed') ?? 1,
-        siteEffect: effect,
-        runner: poolRunner(pool, stop.signal),
-        signal: stop.signal,
-        onProgress(done, total, stage) {
-          const tenth = Math.floor((10 * done) / total);
-          if (tenth !== lastTenth) io.err(`${stage}: ${done} of ${total} programmes`);
-          lastTenth = tenth;
-        },
+      return await interruptible(io, () => 'Stopped: the simulation was interrupted; nothing was printed.', async (signal) => {
+        const study = await powerStudy(design, grid, {
+          replicates,
+          seed: num(args, 'seed') ?? 1,
+          siteEffect: effect,
+          runner: poolRunner(pool, signal),
+          signal,
+          onProgress(done, total, stage) {
+            const tenth = Math.floor((10 * done) / total);
+            if (tenth !== lastTenth) io.err(`${stage}: ${done} of ${total} programmes`);
+            lastTenth = tenth;
+          },
+        });
+        if (args.flags.has('json')) io.out(JSON.stringify(withApproximation(study), null, 2));
+        else io.out(powerAsText(study));
+        return study.cells.some((c) => c.failed > 0) ? 1 : 0;
       });
-      if (args.flags.has('json')) io.out(JSON.stringify(withApproximation(study), null, 2));
-      else io.out(powerAsText(study));
-      return study.cells.some((c) => c.failed > 0) ? 1 : 0;
-    } catch (err) {
-      if (err instanceof FitCancelled) {
-        io.err('Stopped: the simulation was interrupted; nothing was printed.');
-        return 130;
-      }
-      throw err;
     } finally {
-      process.off('SIGINT', onInterrupt);
       pool.dispose();
     }
   },

@@ -2,7 +2,6 @@ import { readFile } from 'node:fs/promises';
 import { basename, extname, resolve } from 'node:path';
 import { findColumn, splitBy, type DataTable } from '@shared/data/table';
 import { DEFAULT_DEMO_SEED } from '@shared/demo/truth';
-import { FitCancelled } from '@shared/engine/types';
 import type { ModelSpec } from '@shared/model/spec';
 import type { ProjectDocument } from '@shared/project/document';
 import { reportStem } from '@shared/report/programme-plan';
@@ -20,6 +19,7 @@ import { progressPrinter } from '../progress';
 import { UsageError, type CliCommand, type CliIO } from '../command';
 import { readSpecFile } from '../spec-file';
 import { createFitPool, defaultJobs } from '../worker/fit-pool';
+import { interruptible } from '../interrupt';
 
 export const report: CliCommand = {
   name: 'report',
@@ -74,26 +74,18 @@ interface ReportInput {
 }
 
 async function runReport(plan: ProgrammePlan, out: string, stem: string, jobs: number, io: CliIO): Promise<number> {
-  const stop = new AbortController();
-  const onInterrupt = () => stop.abort();
-  process.once('SIGINT', onInterrupt);
   const fitPool = plan.compositeTable ? createFitPool(jobs) : null;
   try {
-    const { document, unsound } = await runProgrammeReport(plan, { signal: stop.signal, onProgress: progressLines(plan, io), runner: fitPool ? poolRunner(fitPool.pool, stop.signal) : undefined });
-    const written = await writeReportFiles(document, out, stem, (stage) => io.err(`Report: ${stage} ...`));
-    io.out(written.pdf);
-    io.out(written.html);
-    io.out(written.xlsx);
-    if (unsound.length) io.err(`Look at the report's warnings for ${unsound.join(', ')}: the fit did not converge or could not be made.`);
-    return unsound.length ? 1 : 0;
-  } catch (err) {
-    if (err instanceof FitCancelled) {
-      io.err('Stopped: the report was interrupted; nothing was written.');
-      return 130;
-    }
-    throw err;
+    return await interruptible(io, () => 'Stopped: the report was interrupted; nothing was written.', async (signal) => {
+      const { document, unsound } = await runProgrammeReport(plan, { signal, onProgress: progressLines(plan, io), runner: fitPool ? poolRunner(fitPool.pool, signal) : undefined });
+      const written = await writeReportFiles(document, out, stem, (stage) => io.err(`Report: ${stage} ...`));
+      io.out(written.pdf);
+      io.out(written.html);
+      io.out(written.xlsx);
+      if (unsound.length) io.err(`Look at the report's warnings for ${unsound.join(', ')}: the fit did not converge or could not be made.`);
+      return unsound.length ? 1 : 0;
+    });
   } finally {
-    process.off('SIGINT', onInterrupt);
     fitPool?.pool.dispose();
   }
 }

@@ -18,6 +18,7 @@ import { fitAsText } from '../format/fit-text';
 import { fmt, layoutColumns } from '../format/number';
 import { readSpecFile } from '../spec-file';
 import { createFitPool, defaultJobs } from '../worker/fit-pool';
+import { interruptible } from '../interrupt';
 
 export const trend: CliCommand = {
   name: 'trend',
@@ -64,32 +65,24 @@ export const trend: CliCommand = {
     const table = await loadDataTable(dataPath, { sheet: args.options.get('sheet') });
     const needsPool = opts.limits === 'bootstrap' || args.flags.has('composite');
     const jobs = wholeNumber(args, 'jobs', 0) ?? defaultJobs();
-    const stop = new AbortController();
-    const onInterrupt = () => stop.abort();
-    process.once('SIGINT', onInterrupt);
     const fitPool = needsPool ? createFitPool(jobs) : null;
     if (fitPool) io.err(fitPool.mode === 'threads' ? `Refits run on ${fitPool.pool.size} worker thread${fitPool.pool.size > 1 ? 's' : ''}.` : 'Refits run in this process, one at a time.');
-    const runner: FitRunner | undefined = fitPool ? poolRunner(fitPool.pool, stop.signal) : undefined;
     const progress = progressPrinter(io);
-    const options: TrendOptions = { ...opts, runner, signal: stop.signal, onProgress: progress };
     try {
-      if (by === undefined) {
-        const result = await analyseTrend(table, spec, options);
-        const flags = decisionFlags(result.slope, flagsWanted.horizon, flagsWanted.thresholds);
-        const wantFlags = args.flags.has('flags') || args.options.has('horizon') || args.options.has('thresholds');
-        if (args.flags.has('json')) io.out(JSON.stringify(wantFlags ? { ...result, flags } : result, null, 2));
-        else io.out(trendAsText(result, flags));
-        return result.fit.converged ? 0 : 1;
-      }
-      return await byGroup(table, spec, by, args, options, flagsWanted, io);
-    } catch (err) {
-      if (err instanceof FitCancelled) {
-        io.err('Stopped: the bootstrap was interrupted; nothing was printed.');
-        return 130;
-      }
-      throw err;
+      return await interruptible(io, () => 'Stopped: the bootstrap was interrupted; nothing was printed.', async (signal) => {
+        const runner: FitRunner | undefined = fitPool ? poolRunner(fitPool.pool, signal) : undefined;
+        const options: TrendOptions = { ...opts, runner, signal, onProgress: progress };
+        if (by === undefined) {
+          const result = await analyseTrend(table, spec, options);
+          const flags = decisionFlags(result.slope, flagsWanted.horizon, flagsWanted.thresholds);
+          const wantFlags = args.flags.has('flags') || args.options.has('horizon') || args.options.has('thresholds');
+          if (args.flags.has('json')) io.out(JSON.stringify(wantFlags ? { ...result, flags } : result, null, 2));
+          else io.out(trendAsText(result, flags));
+          return result.fit.converged ? 0 : 1;
+        }
+        return await byGroup(table, spec, by, args, options, flagsWanted, io);
+      });
     } finally {
-      process.off('SIGINT', onInterrupt);
       fitPool?.pool.dispose();
     }
   },
