@@ -13,7 +13,10 @@ import { sampleNegBinomial, sampleNormal, samplePoisson } from '../demo/samplers
 import { FitCancelled } from '../engine/types';
 import type { ModelSpec } from '../model/spec';
 import { TrendError } from './errors';
-import { inThreadRunner, type FitJob, type FitRunner } from './fit-runner';
+import { inThreadRunner, type FitJob, type FitRunner, type JobResult } from './fit-runner';
+
+/** Replicates simulated and handed to the fitter at a time. */
+const POWER_BATCH = 200;
 import { designProblem, type PowerDesign } from './power-design';
 
 /** One simulated programme: one row per site, season and visit. */
@@ -103,10 +106,17 @@ export async function powerStudy(design: PowerDesign, grid: { sites: readonly nu
   let before = 0;
   const cells: PowerCell[] = [];
   for (const c of combos) {
-    if (options.signal?.aborted) throw new FitCancelled();
-    const jobs: FitJob[] = [];
-    for (let r = 0; r < R; r++) jobs.push({ table: simulateProgramme(c, deriveSeed(seed, `power ${c.sites}x${c.seasons} #${r}`)), spec });
-    const done = await runner(jobs, { signal: options.signal, onDone: (d) => options.onProgress?.(before + d, total, `${c.sites} sites x ${c.seasons} seasons`) });
+    // Simulated and fitted a batch at a time: memory stays bounded whatever R is, and a cancel is
+    // seen between batches too. Each replicate's seed is derived from its number, so the batches
+    // change nothing in the results.
+    const done: JobResult[] = [];
+    for (let r0 = 0; r0 < R; r0 += POWER_BATCH) {
+      if (options.signal?.aborted) throw new FitCancelled();
+      const jobs: FitJob[] = [];
+      for (let r = r0; r < Math.min(R, r0 + POWER_BATCH); r++) jobs.push({ table: simulateProgramme(c, deriveSeed(seed, `power ${c.sites}x${c.seasons} #${r}`)), spec });
+      const at = before + r0;
+      done.push(...(await runner(jobs, { signal: options.signal, onDone: (d) => options.onProgress?.(at + d, total, `${c.sites} sites x ${c.seasons} seasons`) })));
+    }
     before += R;
     let hits = 0;
     let right = 0;
