@@ -2,7 +2,7 @@
 import type { CountFrequencies } from '../diagnostics/count-frequencies';
 import type { ChartOption } from './chart-style';
 import { categoryAxis, chartFrame, chartNumber, valueAxis } from './chart-style';
-import { greys, seriesColour } from './palette';
+import { greys, seriesColour, seriesMark } from './palette';
 
 export const FREQUENCY_TITLE = 'Do the counts fit? Observed and expected frequencies';
 
@@ -20,10 +20,11 @@ export function frequencyChart(freq: CountFrequencies): ChartOption {
         name: `Expected: ${m.label}`,
         type: 'line' as const,
         data: m.expected.map(chartNumber),
-        symbol: 'circle',
-        symbolSize: 6,
+        // Model lines cross: each has its own symbol and dash as well as its colour.
+        symbol: seriesMark(k).symbol,
+        symbolSize: 7,
         itemStyle: { color: seriesColour(k) },
-        lineStyle: { color: seriesColour(k), width: 2 },
+        lineStyle: { color: seriesColour(k), width: 2, type: seriesMark(k).dash },
       })),
     ],
   };

@@ -1,6 +1,8 @@
 /** echarts option builders for the diagnostics and the trend report, and the palette. */
-export { seriesColours, seriesColour, greys, attention } from './palette';
+export { seriesColours, seriesColour, seriesMarks, seriesMark, greys, attention, attentionSymbol } from './palette';
+export type { SeriesMark, LineDash } from './palette';
 export { chartNumber } from './chart-style';
+export { chartSummary } from './chart-summary';
 export type { ChartOption } from './chart-style';
 export { frequencyChart, FREQUENCY_TITLE } from './frequency-chart';
 export { rootogramChart, ROOTOGRAM_TITLE } from './rootogram-chart';

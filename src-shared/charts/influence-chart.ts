@@ -6,7 +6,7 @@
  */
 import type { SiteInfluence } from '../diagnostics/site-influence';
 import type { ChartOption } from './chart-style';
-import { categoryAxis, chartFrame, chartNumber, valueAxis } from './chart-style';
+import { categoryAxis, chartFrame, chartNumber, pickedEmphasis, valueAxis } from './chart-style';
 import { attention, greys, seriesColour } from './palette';
 
 export function influenceTitle(coefficient: string): string {
@@ -43,6 +43,7 @@ export function influenceChart(infl: SiteInfluence, meaning?: string): ChartOpti
         name: `Change in ${infl.coefficient}`,
         type: 'bar',
         data,
+        emphasis: { itemStyle: pickedEmphasis.itemStyle },
         markLine: {
           silent: true,
           symbol: ['none', 'none'],

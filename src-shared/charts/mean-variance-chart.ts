@@ -6,7 +6,7 @@
  */
 import type { MeanVariance } from '../diagnostics/mean-variance';
 import type { ChartOption } from './chart-style';
-import { chartFrame, chartNumber, valueAxis } from './chart-style';
+import { chartFrame, chartNumber, pickedEmphasis, valueAxis } from './chart-style';
 import { greys, seriesColour } from './palette';
 
 export const MEAN_VARIANCE_TITLE = 'Are the counts overdispersed? Variance against mean by site';
@@ -36,6 +36,7 @@ export function meanVarianceChart(mv: MeanVariance, negbinFrom?: string): ChartO
         type: 'scatter',
         symbolSize: 7,
         itemStyle: { color: greys.observed },
+        emphasis: pickedEmphasis,
         data: shown.map((s) => ({ value: [chartNumber(s.mean), chartNumber(s.variance)], site: s.site, rows: s.rows })),
       },
       { id: 'poisson', name: 'Poisson: variance = mean', type: 'line', symbol: 'none', lineStyle: { color: seriesColour(0), width: 2, type: 'dashed' }, itemStyle: { color: seriesColour(0) }, data: curve(mv.poisson) },

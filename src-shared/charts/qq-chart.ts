@@ -6,8 +6,8 @@
  */
 import type { QqEnvelope } from '../diagnostics/qq-envelope';
 import type { ChartOption } from './chart-style';
-import { bandSeries, chartFrame, chartNumber, valueAxis } from './chart-style';
-import { attention, greys, seriesColour } from './palette';
+import { bandSeries, chartFrame, chartNumber, pickedEmphasis, valueAxis } from './chart-style';
+import { attention, attentionSymbol, greys, seriesColour } from './palette';
 import { POINT_ENCODE } from './residual-charts';
 
 export const QQ_TITLE = 'Are the residuals normal? QQ plot with simulation envelope';
@@ -47,8 +47,8 @@ export function qqChart(env: QqEnvelope, modelLabel: string): ChartOption {
           [chartNumber(hi), chartNumber(hi)],
         ],
       },
-      { id: 'inside', name: 'Residuals', type: 'scatter', symbolSize: 5, itemStyle: { color: seriesColour(0) }, encode: POINT_ENCODE, data: pts.filter((p) => !p.outside).map(point), z: 3 },
-      { id: 'outside', name: 'Outside the envelope', type: 'scatter', symbolSize: 6, itemStyle: { color: attention }, encode: POINT_ENCODE, data: pts.filter((p) => p.outside).map(point), z: 4 },
+      { id: 'inside', name: 'Residuals', type: 'scatter', symbolSize: 5, itemStyle: { color: seriesColour(0) }, encode: POINT_ENCODE, emphasis: pickedEmphasis, data: pts.filter((p) => !p.outside).map(point), z: 3 },
+      { id: 'outside', name: 'Outside the envelope', type: 'scatter', symbol: attentionSymbol, symbolSize: 8, itemStyle: { color: attention }, encode: POINT_ENCODE, emphasis: pickedEmphasis, data: pts.filter((p) => p.outside).map(point), z: 4 },
     ],
   };
 }

@@ -6,7 +6,7 @@
 import type { QuantileResiduals } from '../diagnostics/quantile-residuals';
 import type { ResidualGroups } from '../diagnostics/residual-groups';
 import type { ChartOption } from './chart-style';
-import { categoryAxis, chartFrame, chartNumber, valueAxis } from './chart-style';
+import { categoryAxis, chartFrame, chartNumber, pickedEmphasis, valueAxis } from './chart-style';
 import { greys, seriesColour } from './palette';
 
 export const RESIDUALS_FITTED_TITLE = 'Is anything left over? Residuals against fitted values';
@@ -41,7 +41,7 @@ export function residualsVsFittedChart(res: QuantileResiduals, modelLabel: strin
     ...chartFrame({ title: RESIDUALS_FITTED_TITLE, subtitle: subtitle(res) }),
     xAxis: valueAxis({ name: positive ? 'Fitted count per record (log scale)' : 'Fitted count per record', log: positive }, 'x'),
     yAxis: valueAxis({ name: RESIDUAL_AXIS }, 'y'),
-    series: [{ id: 'residuals', name: modelLabel, type: 'scatter', symbolSize: 5, itemStyle: { color: seriesColour(0), opacity: 0.7 }, encode: POINT_ENCODE, data, markLine: referenceLines() }],
+    series: [{ id: 'residuals', name: modelLabel, type: 'scatter', symbolSize: 5, itemStyle: { color: seriesColour(0), opacity: 0.7 }, encode: POINT_ENCODE, data, emphasis: pickedEmphasis, markLine: referenceLines() }],
   };
 }
 
@@ -53,7 +53,7 @@ export function residualsByGroupChart(res: QuantileResiduals, groups: ResidualGr
     xAxis: categoryAxis(groups.column, groups.levels),
     yAxis: valueAxis({ name: RESIDUAL_AXIS }, 'y'),
     series: [
-      { id: 'residuals', name: modelLabel, type: 'scatter', symbolSize: 5, itemStyle: { color: seriesColour(0), opacity: 0.6 }, encode: POINT_ENCODE, data, markLine: referenceLines() },
+      { id: 'residuals', name: modelLabel, type: 'scatter', symbolSize: 5, itemStyle: { color: seriesColour(0), opacity: 0.6 }, encode: POINT_ENCODE, data, emphasis: pickedEmphasis, markLine: referenceLines() },
       {
         id: 'median',
         name: `Median per ${groups.column}`,

@@ -7,13 +7,14 @@
 import type { HangingRootogram } from '../diagnostics/rootogram';
 import type { ChartOption } from './chart-style';
 import { categoryAxis, chartFrame, chartNumber, horizontalLine, valueAxis } from './chart-style';
-import { greys, seriesColour } from './palette';
+import { greys, seriesColour, seriesMark } from './palette';
 
 export const ROOTOGRAM_TITLE = 'Where does the model miss? Hanging rootogram';
 
 export function rootogramChart(root: HangingRootogram, modelIndex = 0): ChartOption {
   const labels = root.bins.map((b) => b.label);
   const colour = seriesColour(modelIndex);
+  const mark = seriesMark(modelIndex);
   return {
     ...chartFrame({
       title: ROOTOGRAM_TITLE,
@@ -49,10 +50,10 @@ export function rootogramChart(root: HangingRootogram, modelIndex = 0): ChartOpt
         name: `Expected: ${root.model}`,
         type: 'line',
         data: root.bins.map((b) => chartNumber(b.sqrtExpected)),
-        symbol: 'circle',
-        symbolSize: 6,
+        symbol: mark.symbol,
+        symbolSize: 7,
         itemStyle: { color: colour },
-        lineStyle: { color: colour, width: 2 },
+        lineStyle: { color: colour, width: 2, type: mark.dash },
         z: 3,
         markLine: horizontalLine(0, 'zero'),
       },

@@ -52,12 +52,14 @@ const fits = [
   { label: 'Negative binomial', fit: quineFit('negbin') },
 ];
 
-describe('palette (based on Okabe & Ito 2008)', () => {
-  it('six distinct series colours from the published set, cycling; greys apart', () => {
+describe('palette (our own; contrast and colour vision in palette-contrast and palette-vision tests)', () => {
+  it('six distinct series colours, cycling; greys apart; none taken from a published set', () => {
+    // Okabe & Ito (2008), "Color Universal Design", J*Fly: the set the charts used before.
     const okabeIto = ['#E69F00', '#56B4E9', '#009E73', '#F0E442', '#0072B2', '#D55E00', '#CC79A7', '#000000'];
     expect(new Set(seriesColours).size).toBe(6);
-    for (const c of seriesColours) expect(okabeIto).toContain(c);
+    for (const c of seriesColours) expect(okabeIto).not.toContain(c);
     expect(seriesColour(6)).toBe(seriesColour(0));
+    expect(seriesColour(-1)).toBe(seriesColour(5));
     expect(Object.values(greys)).not.toContain(seriesColour(0));
   });
 });
