@@ -1,6 +1,9 @@
-import { useEffect, useRef } from 'react';
+import { useEffect, useId, useMemo, useRef, useState, type KeyboardEvent } from 'react';
 import * as echarts from 'echarts';
 import type { EChartsOption } from 'echarts';
+import { chartSummary } from '@shared/charts/chart-summary';
+import { chartPoints, type ChartPoint } from './chart-points';
+import { nextPoint, pointOrder } from './point-keys';
 
 /**
  * One echarts chart in a div, redrawn when its option changes and resized
@@ -9,8 +12,25 @@ import type { EChartsOption } from 'echarts';
  * tools can read what is drawn without the canvas, and holds the echarts
  * instance as `echartsInstance` (the browser tests read its option).
  * `onPointClick` receives a clicked point's data and its series id.
+ *
+ * Every chart has the title as its accessible name and a summary in words
+ * (chartSummary) as its description. With `keyboard`, the chart is also a
+ * stop in the Tab order: the arrow keys (and Home, End, Page Up, Page
+ * Down; see point-keys.ts) pick out a point of the named series, which is
+ * highlighted with its tooltip and described under the chart, and Enter
+ * hands it to `onPointClick` as a click would. Escape or leaving the chart
+ * lets it go.
  */
 export type PointClick = (data: unknown, seriesId: string) => void;
+
+export interface ChartKeyboard {
+  /** The series whose points the keys walk through. */
+  readonly seriesIds: readonly string[];
+  /** What a point is, in words ("Common toad at Hollow Pond, season 2019"). */
+  describe?(point: ChartPoint): string | null;
+  /** What Enter does, for the description ("shows its records"). */
+  readonly action: string;
+}
 export type ChartBox = HTMLDivElement & { echartsInstance?: echarts.ECharts };
 
 function seriesOf(option: EChartsOption): { id?: unknown; data?: unknown }[] {
@@ -43,12 +63,39 @@ function svgOf(option: EChartsOption, width: number, height: number): string {
   }
 }
 
-export function EChart({ option, fileName, testId, height = 340, onPointClick, hint }: { option: EChartsOption; fileName: string; testId?: string; height?: number; onPointClick?: PointClick; hint?: string }) {
+/** An axis's title without its note in brackets ("Fitted count per record", not "... (log scale)"). */
+function axisName(axis: unknown): string {
+  const a = (Array.isArray(axis) ? axis[0] : axis) as { name?: unknown } | undefined;
+  return String(a?.name ?? '').replace(/\s*\([^)]*\)$/, '');
+}
+
+function shortNumber(v: number): string {
+  return String(Number(v.toPrecision(3)));
+}
+
+/** The chosen point in words: what it is, where it sits on both axes, its place along the x axis. */
+function pointText(option: EChartsOption, p: ChartPoint, rank: number, n: number, keyboard: ChartKeyboard): string {
+  const what = keyboard.describe?.(p);
+  const x = p.category ?? shortNumber(p.x);
+  const where = `${axisName(option.xAxis) || 'x'} ${x}, ${axisName(option.yAxis) || 'y'} ${shortNumber(p.y)}`;
+  return `${what ? `${what}: ` : ''}${where}. Point ${rank + 1} of ${n} from the left; Enter ${keyboard.action}.`;
+}
+
+const KEYS_TEXT = 'Arrow keys move between points (left and right along the horizontal axis, up and down by value), Home and End go to the first and last, Page Up and Page Down to the highest and lowest';
+
+export function EChart({ option, fileName, testId, height = 340, onPointClick, hint, keyboard }: { option: EChartsOption; fileName: string; testId?: string; height?: number; onPointClick?: PointClick; hint?: string; keyboard?: ChartKeyboard }) {
   const box = useRef<ChartBox>(null);
   const chart = useRef<echarts.ECharts | null>(null);
   const clicked = useRef<PointClick | undefined>(onPointClick);
   clicked.current = onPointClick;
-
+  const summaryId = useId();
+  // The series ids as one string, so a new array of the same ids does not count as a change.
+  const walked = keyboard?.seriesIds.join('\u0000') ?? '';
+  const points = useMemo(() => (walked ? chartPoints(option, walked.split('\u0000')) : []), [option, walked]);
+  const order = useMemo(() => pointOrder(points), [points]);
+  const [active, setActive] = useState<number | null>(null);
+  const [focused, setFocused] = useState(false);
+  const summary = useMemo(() => chartSummary(option), [option]);
   useEffect(() => {
     const el = box.current;
     if (!el) return;
@@ -69,7 +116,47 @@ export function EChart({ option, fileName, testId, height = 340, onPointClick, h
   useEffect(() => {
     // Drawn on the next frame, so a stage with several charts shows at once.
     chart.current?.setOption(option, { notMerge: true, lazyUpdate: true });
+    setActive(null);
   }, [option]);
+
+  // The chosen point is highlighted with its tooltip, and let go when another is chosen or the chart is left.
+  useEffect(() => {
+    const c = chart.current;
+    const p = active !== null ? points[active] : undefined;
+    if (!c || !p) return;
+    const at = { seriesIndex: p.seriesIndex, dataIndex: p.dataIndex };
+    c.dispatchAction({ type: 'highlight', ...at });
+    c.dispatchAction({ type: 'showTip', ...at });
+    return () => {
+      if (c.isDisposed()) return;
+      c.dispatchAction({ type: 'downplay', ...at });
+      c.dispatchAction({ type: 'hideTip' });
+    };
+  }, [active, points]);
+
+  const letGo = () => {
+    setActive(null);
+    setFocused(false);
+  };
+
+  const onKeyDown = (e: KeyboardEvent<HTMLDivElement>) => {
+    if (!keyboard || !points.length) return;
+    if (e.key === 'Enter' || e.key === ' ') {
+      e.preventDefault();
+      const p = active !== null ? points[active] : undefined;
+      if (p) clicked.current?.(p.data, p.seriesId);
+      return;
+    }
+    if (e.key === 'Escape') {
+      if (active !== null) e.preventDefault();
+      setActive(null);
+      return;
+    }
+    const next = nextPoint(e.key, active, order);
+    if (next === undefined) return;
+    e.preventDefault();
+    setActive(next);
+  };
 
   const savePng = () => {
     const url = chart.current?.getDataURL({ type: 'png', pixelRatio: 2, backgroundColor: '#ffffff' });
@@ -84,11 +171,33 @@ export function EChart({ option, fileName, testId, height = 340, onPointClick, h
   };
 
   const ids = seriesOf(option).map((s) => String(s.id ?? ''));
+  const title = String((option.title as { text?: string } | undefined)?.text ?? 'Chart');
+  const chosen = active !== null ? points[active] : undefined;
+  const walking = Boolean(keyboard && points.length);
+  const status = chosen && keyboard ? pointText(option, chosen, order.rankX[active!], points.length, keyboard) : focused && keyboard ? `Choose a point with the arrow keys; Enter ${keyboard.action}.` : hint;
   return (
     <figure className="chart" data-testid={testId}>
-      <div ref={box} className="chart-box" style={{ height }} data-series={ids.join(' ')} data-points={pointCount(option)} role="img" aria-label={String((option.title as { text?: string } | undefined)?.text ?? 'Chart')} />
+      <div
+        ref={box}
+        className="chart-box"
+        style={{ height }}
+        data-series={ids.join(' ')}
+        data-points={pointCount(option)}
+        {...(chosen ? { 'data-active-point': `${chosen.seriesId}:${chosen.dataIndex}` } : {})}
+        {...(walking ? { tabIndex: 0, role: 'application', 'aria-roledescription': 'chart', onKeyDown, onFocus: () => setFocused(true), onBlur: letGo } : { role: 'img' })}
+        aria-label={title}
+        aria-describedby={summaryId}
+      />
+      <p id={summaryId} className="visually-hidden">
+        {summary}
+        {walking && keyboard ? ` ${KEYS_TEXT}; Enter ${keyboard.action}.` : ''}
+      </p>
       <figcaption className="chart-actions">
-        {hint && <span className="chart-hint">{hint}</span>}
+        {(status || walking) && (
+          <span className="chart-hint" {...(walking ? { role: 'status', 'data-testid': 'chart-point' } : {})}>
+            {status}
+          </span>
+        )}
         <button type="button" className="button is-small" onClick={savePng}>
           Save PNG
         </button>

@@ -4,7 +4,7 @@ import type { ChartId, ChartResult } from './diagnostic-charts';
 import { diagnosticChartsInWorker } from './diagnostics-client';
 import { chartLabels, type FittedModel } from './fitted-model';
 import { distributionNames } from './spec-draft';
-import { clickHint, linkedCharts, pointLink } from './diagnostics/point-records';
+import { clickHint, linkedCharts, linkedSeries, pointLabel, pointLink } from './diagnostics/point-records';
 import { showRecords } from './diagnostics/record-link';
 import { OutlierControls } from './diagnostics/OutlierControls';
 
@@ -13,7 +13,8 @@ import { OutlierControls } from './diagnostics/OutlierControls';
  * models; the rootogram, residuals (against fitted values, season and site),
  * QQ, mean–variance, influence by site and the outlier flags for the model
  * shown. Computed in the diagnostics worker; a newer request cancels an
- * older one. A click on a record or site point shows its records.
+ * older one. A click on a record or site point shows its records; so does
+ * Enter on a point chosen with the arrow keys (components/EChart.tsx).
  */
 type State = { state: 'working' } | { state: 'ready'; charts: ChartResult[] } | { state: 'failed'; message: string };
 
@@ -77,6 +78,11 @@ export function DiagnosticsPanel({ species, models, focus, siteColumn, seasonCol
     const link = shown ? pointLink(id, data, shown.table, columns, species) : null;
     if (link) showRecords(link);
   };
+  const keysOf = (id: ChartId) => ({
+    seriesIds: linkedSeries[id] ?? [],
+    describe: (p: { data: unknown }) => (shown ? pointLabel(id, p.data, shown.table, columns, species) : null),
+    action: id === 'influence' || id === 'mean-variance' ? "shows the site's records" : 'shows its records',
+  });
 
   return (
     <section className="diagnostics" aria-labelledby="diagnostics-heading">
@@ -85,7 +91,7 @@ export function DiagnosticsPanel({ species, models, focus, siteColumn, seasonCol
         These charts check whether the model describes the counts; they say nothing about detection or changes in effort, which can bias a trend. Have a statistician look over the model choice.
       </p>
       <p className="hint" data-testid="keyboard-route">
-        Without a mouse: the records behind any chart point are on the Records stage (choose the site and season in its filters); the improbable totals below have their own button.
+        Without a mouse: Tab to a chart with points, choose a point with the arrow keys and press Enter to see its records on the Records stage; the improbable totals below have their own button.
       </p>
       {shown && <OutlierControls species={species} model={shown.label} dataKey={shown.dataKey} outcome={shown.outcome} table={shown.table} siteColumn={siteColumn} seasonColumn={seasonColumn} />}
       {(state.state === 'working' || (state.state === 'ready' && !painted)) && <p className="status">Drawing the diagnostic charts…</p>}
@@ -103,7 +109,7 @@ export function DiagnosticsPanel({ species, models, focus, siteColumn, seasonCol
                 option={c.option}
                 fileName={`${slug(species)}-${c.id}`}
                 testId={`chart-${c.id}`}
-                {...(linkedCharts.has(c.id) ? { onPointClick: onPoint(c.id), hint: clickHint(c.id) } : {})}
+                {...(linkedCharts.has(c.id) ? { onPointClick: onPoint(c.id), hint: clickHint(c.id), keyboard: keysOf(c.id) } : {})}
               />
             ) : (
               <p key={c.id} className="chart-problem" data-testid={`chart-${c.id}`}>

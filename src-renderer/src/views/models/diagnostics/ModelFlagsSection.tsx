@@ -5,8 +5,8 @@ import type { RecordLink } from './record-link';
 /**
  * The model's outlier flags listed for review beside the cleaning grid: one
  * line per improbable season total, most extreme first, each with a button
- * that shows its visit records (reachable from the keyboard, unlike a
- * chart point). Opening and closing is the analyst's; the list scrolls.
+ * that shows its visit records (a shorter keyboard route than walking a
+ * chart's points). Opening and closing is the analyst's; the list scrolls.
  */
 export const MODEL_FLAGS_CLOSED = 36;
 export const MODEL_FLAGS_OPEN = 36 + 184;

@@ -20,6 +20,16 @@ const chartNames: Partial<Record<ChartId, string>> = {
 
 export const linkedCharts: ReadonlySet<ChartId> = new Set(Object.keys(chartNames) as ChartId[]);
 
+/** The series whose points lead to records, which the keyboard walks through (see components/point-keys.ts). */
+export const linkedSeries: Partial<Record<ChartId, readonly string[]>> = {
+  residuals: ['residuals'],
+  'residuals-season': ['residuals'],
+  'residuals-site': ['residuals'],
+  qq: ['inside', 'outside'],
+  'mean-variance': ['sites'],
+  influence: ['change'],
+};
+
 /** What a click on the chart shows, for the hint under it. */
 export function clickHint(id: ChartId): string {
   return id === 'influence' ? "Click a bar to see the site's records" : id === 'mean-variance' ? "Click a site to see its records" : 'Click a point to see its records';
@@ -29,6 +39,12 @@ function rowsOf(data: unknown): number[] {
   if (Array.isArray(data)) return typeof data[2] === 'number' ? [data[2]] : [];
   if (data && typeof data === 'object' && Array.isArray((data as { rows?: unknown }).rows)) return ((data as { rows: unknown[] }).rows).filter((r): r is number => typeof r === 'number');
   return [];
+}
+
+/** What a point leads to, in words for the keyboard ("Common toad at Hollow Pond, season 2019"), without the chart's name. */
+export function pointLabel(id: ChartId, data: unknown, table: DataTable, columns: { site: string; season: string }, species: string): string | null {
+  const link = pointLink(id, data, table, columns, species);
+  return link ? link.label.replace(/ \(from [^)]*\)$/, '') : null;
 }
 
 export function pointLink(id: ChartId, data: unknown, table: DataTable, columns: { site: string; season: string }, species: string): RecordLink | null {
