@@ -40,8 +40,9 @@ import { mappingsMember } from '../project/stored-mappings';
  * Models: the demo trend spec (resources/demo/trend-spec.json) in the app's
  * table columns, per species: negative binomial, fixed pond effect, annual
  * season trend from 2012, offsets log effort (hours) and log area (ha). The
- * spec's water temperature is left out: the visit records the app keeps
- * have no temperature field. For the species simulated with extra zeros
+ * spec's water temperature is left out of these models (the records carry it
+ * as the visit covariate water_temp_c, which the analyst may add in the
+ * builder). For the species simulated with extra zeros
  * (natterjack toad), the zero-inflated negative binomial with the same terms
  * is added and chosen (test/analysis/demo-project.test.ts checks that the
  * engine's AIC supports it).

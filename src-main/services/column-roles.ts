@@ -25,7 +25,7 @@ export function demoTemplate(headers: readonly string[]): RolePlan | null {
   const species = headers.slice(fixed.length, headers.length - 1);
   if (species.length === 0) return null;
   return {
-    roles: { site: 'Pond', date: 'Date', visit: 'Visit', observer: 'Observer', effort: 'Minutes', effortUnit: 'minutes', speciesColumns: species },
+    roles: { site: 'Pond', date: 'Date', visit: 'Visit', observer: 'Observer', effort: 'Minutes', effortUnit: 'minutes', speciesColumns: species, covariates: ['Water temp (°C)'] },
     mappedBy: 'demo-template',
     dateOrder: 'dmy',
   };
@@ -50,7 +50,7 @@ export function guessRoles(table: ImportedTable, file: string): RolePlan {
 export function planRoles(table: ImportedTable, file: string, given?: ColumnRoles): RolePlan {
   const headers = table.columns.map((c) => c.name);
   if (given) {
-    const missing = [given.site, given.date, given.season, given.visit, given.observer, given.effort, given.species, given.count, ...(given.speciesColumns ?? [])]
+    const missing = [given.site, given.date, given.season, given.visit, given.observer, given.effort, given.species, given.count, ...(given.speciesColumns ?? []), ...(given.covariates ?? [])]
       .filter((h): h is string => h !== undefined)
       .filter((h) => !headers.includes(h));
     if (missing.length) {

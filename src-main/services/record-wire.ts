@@ -1,5 +1,6 @@
 import { recordFields, type PackedColumn, type RecordColumns } from '@shared/host/contract';
 import type { CountRecord } from '@shared/import/records';
+import { covariateField } from '@shared/import/visit-covariates';
 
 /** Records as packed columns for the bridge (the format is described in the contract). */
 export function packColumn(values: readonly (string | number | null)[]): PackedColumn {
@@ -29,6 +30,9 @@ export function packColumn(values: readonly (string | number | null)[]): PackedC
 export function recordsToColumns(records: readonly CountRecord[], sourceId: string, effort: (r: CountRecord) => number | null = (r) => r.effort): RecordColumns {
   const values: Record<string, PackedColumn> = {};
   for (const f of recordFields) values[f] = packColumn(f === 'effort' ? records.map(effort) : records.map((r) => r[f] as string | number | null));
+  // Visit covariates travel as fields of their own (cov:<name>), beside the fixed ones.
+  const covariates = Object.keys(records[0]?.visitCovariates ?? {});
+  for (const name of covariates) values[covariateField(name)] = packColumn(records.map((r) => r.visitCovariates?.[name] ?? null));
   const first = records[0];
   const fieldColumns: Record<string, string> = {};
   if (first) for (const [k, v] of Object.entries(first.columns)) if (v) fieldColumns[k] = v;
@@ -40,5 +44,6 @@ export function recordsToColumns(records: readonly CountRecord[], sourceId: stri
     column: packColumn(records.map((r) => r.column)),
     fieldColumns,
     values,
+    ...(covariates.length ? { covariates } : {}),
   };
 }

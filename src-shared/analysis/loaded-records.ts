@@ -1,5 +1,6 @@
 import type { CleaningRecord, FieldValue } from '../cleaning/record';
 import { recordFields, recordId, type LoadedSource, type PackedColumn } from '../host/contract';
+import { covariateField } from '../import/visit-covariates';
 
 /**
  * The raw records of the sources as the import gives them to the page
@@ -22,7 +23,9 @@ export function recordsOfSource(s: LoadedSource): { raw: CleaningRecord[]; sheet
   const sheet = unpackColumn(r.sheet, r.n);
   const row = unpackColumn(r.row, r.n);
   const column = unpackColumn(r.column, r.n);
-  const values = recordFields.map((f) => [f, r.values[f] ? unpackColumn(r.values[f], r.n) : []] as const);
+  // The fixed fields, then the source's visit covariates (cov:<name>), as the import packed them.
+  const fields = [...recordFields, ...(r.covariates ?? []).map(covariateField)];
+  const values = fields.map((f) => [f, r.values[f] ? unpackColumn(r.values[f], r.n) : []] as const);
   const raw: CleaningRecord[] = [];
   for (let i = 0; i < r.n; i++) {
     const fields: Record<string, FieldValue> = {};
@@ -36,6 +39,11 @@ export function recordsOfSource(s: LoadedSource): { raw: CleaningRecord[]; sheet
 export function commonEffortUnit(sources: readonly LoadedSource[]): string | undefined {
   const units = new Set(sources.map((s) => s.summary.effortUnit).filter(Boolean));
   return units.size === 1 ? [...units][0] : undefined;
+}
+
+/** The visit covariates of the sources, each name once, in the order the sources give them. */
+export function visitCovariatesOf(sources: readonly LoadedSource[]): string[] {
+  return [...new Set(sources.flatMap((s) => s.records.covariates ?? []))];
 }
 
 export function rawRecordsOf(sources: readonly LoadedSource[]): CleaningRecord[] {

@@ -52,6 +52,8 @@ export const columnRolesSchema = z
     speciesColumns: z.array(z.string().min(1)).optional(),
     species: z.string().optional(),
     count: z.string().optional(),
+    /** Visit covariates: further columns recorded on each visit (water temperature, wind ...), offered as predictors. */
+    covariates: z.array(z.string().min(1)).optional(),
   })
   .strict();
 export type ColumnRoles = z.infer<typeof columnRolesSchema>;
@@ -86,6 +88,8 @@ export const recordColumnsSchema = z.object({
   /** Letters of the visit columns, for pointing at a site, date or effort cell. */
   fieldColumns: z.record(z.string(), z.string()),
   values: z.record(z.string(), packedColumnSchema),
+  /** Names of the visit covariates; each one's values are in `values` under its field (`cov:<name>`, see visit-covariates.ts). */
+  covariates: z.array(z.string()).optional(),
 });
 export type RecordColumns = z.infer<typeof recordColumnsSchema>;
 

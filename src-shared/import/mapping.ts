@@ -1,5 +1,5 @@
-import { parseNumber } from '../data/table';
 import { CellKind } from './cells';
+import { cellNumber } from './cell-number';
 import { serialToIso } from './excel-dates';
 import { compileFieldCodes, defaultFieldCodes } from './field-codes';
 import type { Finding } from './findings';
@@ -8,6 +8,7 @@ import { placeOf } from './imported-table';
 import type { ColumnMap, MappingTemplate } from './mapping-template';
 import type { CountRecord } from './records';
 import { foldName } from './similarity';
+import { readCovariateColumn, type CovariateValue } from './visit-covariates';
 import { matchTemplate, templateFindings, type TemplateMatch } from './template-match';
 import { parseClearTextDate, parseTextDate, readDateColumn, type DateOrder } from './text-dates';
 import { isAreaUnit, isEffortUnit, toCanonicalEffort, toHectares, effortUnitInfo, unitFromHeader } from './units';
@@ -42,13 +43,6 @@ interface Bound {
   readonly map: ColumnMap;
   readonly col: ImportedColumn;
   readonly index: number;
-}
-
-function cellNumber(col: ImportedColumn, i: number, decimalMark: '.' | ','): number {
-  const k = col.kinds[i];
-  if (k === CellKind.number) return col.numbers[i];
-  if (k === CellKind.text) return parseNumber(col.texts[i], decimalMark);
-  return Number.NaN;
 }
 
 /** Site attributes from the site sheet: area (ha) and covariates, by folded site name. */
@@ -133,6 +127,7 @@ export function applyMapping(table: ImportedTable, template: MappingTemplate, op
     site: letterOf(site.col.name), date: dateB && letterOf(dateB.col.name), season: seasonB && letterOf(seasonB.col.name), visit: visitB && letterOf(visitB.col.name),
     effort: effortB && letterOf(effortB.col.name), area: areaB && letterOf(areaB.col.name), observer: observerB && letterOf(observerB.col.name), species: speciesB && letterOf(speciesB.col.name),
   };
+  const covariateValues = covariates.map((b) => ({ name: b.map.name ?? b.map.header, values: readCovariateColumn(b.col, decimalMark) }));
   const dateCache = new Map<string, string | null>();
   const date1904 = table.source.date1904 ?? false;
   for (let i = 0; i < table.nrows; i++) {
@@ -171,6 +166,8 @@ export function applyMapping(table: ImportedTable, template: MappingTemplate, op
     }
     const cov: Record<string, string> = { ...(attr?.covariates ?? {}) };
     for (const b of covariates) cov[b.map.name ?? b.map.header] = b.col.texts[i].trim();
+    const visitCovariates: Record<string, CovariateValue> = {};
+    for (const c of covariateValues) visitCovariates[c.name] = c.values[i];
     const observer = observerB ? observerB.col.texts[i].trim() : '';
     const { sheet, row } = placeOf(table, site.index, i);
     for (const c of counts) {
@@ -182,7 +179,7 @@ export function applyMapping(table: ImportedTable, template: MappingTemplate, op
       records.push({
         sheet, row, column: c.col.letters[table.sheetIndex[i]], site: siteName, date, dateText, dateKind, season, visit, species,
         code: c.col.texts[i], status: reading.status, count: Number.isNaN(reading.number) ? null : reading.number, rule,
-        effort, effortText, area, observer, covariates: cov, columns: columnsOf, formulaError: c.col.kinds[i] === CellKind.error,
+        effort, effortText, area, observer, covariates: cov, ...(covariateValues.length ? { visitCovariates } : {}), columns: columnsOf, formulaError: c.col.kinds[i] === CellKind.error,
       });
     }
   }

@@ -1,4 +1,5 @@
 import type { CountStatus } from './field-codes';
+import type { CovariateValue } from './visit-covariates';
 
 /**
  * One count: a species at a site on a visit, after mapping and field codes.
@@ -33,6 +34,13 @@ export interface CountRecord {
   readonly area: number | null;
   readonly observer: string;
   readonly covariates: Readonly<Record<string, string>>;
+  /**
+   * The visit covariates of the counts sheet (its columns with the role
+   * "covariate"), by name: a number where the whole column reads as numbers,
+   * else the text; null for a blank cell. `covariates` holds the same as texts
+   * together with the site attributes of a site sheet.
+   */
+  readonly visitCovariates?: Readonly<Record<string, CovariateValue>>;
   /** Column letters of the roles, for findings. */
   readonly columns: Readonly<Partial<Record<'site' | 'date' | 'season' | 'visit' | 'effort' | 'area' | 'observer' | 'species', string>>>;
   /** True when the count cell holds a formula error (#DIV/0! ...). */

@@ -7,7 +7,8 @@ import { isEffortUnit, unitFromHeader } from './units';
  * The desktop app's column roles (which column is the site, the date, the
  * species columns ...) as a mapping template and back, so the app reads its
  * sheets with the same mapping and checks as the command line. Columns the
- * roles do not name are ignored (not reported as new).
+ * roles do not name are ignored (not reported as new); visit covariates are
+ * columns with the role "covariate".
  */
 export function rolesToTemplate(roles: ColumnRoles, headers: readonly string[], dateOrder?: DateOrder): MappingTemplate {
   const named = new Map<string, ColumnMap>();
@@ -29,6 +30,7 @@ export function rolesToTemplate(roles: ColumnRoles, headers: readonly string[], 
     put(roles.species, { role: 'species' });
     put(roles.count, { role: 'count' });
   }
+  for (const h of roles.covariates ?? []) put(h, { role: 'covariate' });
   const columns = headers.map((h) => named.get(h) ?? { header: h, role: 'ignore' as const });
   return { kind: 'tallywise-mapping', version: 1, layout: wide ? 'wide-species' : 'long', columns, ...(dateOrder ? { dateOrder } : {}) };
 }
@@ -58,5 +60,7 @@ export function templateToRoles(template: MappingTemplate): { roles: ColumnRoles
     roles.species = first('species')!.header;
     roles.count = counts[0].header;
   } else return { gap: 'no-counts' };
+  const covariates = template.columns.filter((c) => c.role === 'covariate').map((c) => c.header);
+  if (covariates.length) roles.covariates = covariates;
   return { roles };
 }
