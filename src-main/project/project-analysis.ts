@@ -10,7 +10,9 @@
  *               (a.roles.effort: effort_h, effort_km ...), log_effort,
  *               area_ha and log_area (when the site list gives areas),
  *               offset, at_least_records, approximate_records,
- *               present_uncounted, then the site covariates (a.roles.covariates)
+ *               present_uncounted, then the site covariates (a.roles.covariates),
+ *               then the visit covariates (a.analysis.visitCovariates: each
+ *               one's column, kind and how many rows were left blank)
  *   a.roles     { site, season, species, count, effort, area, covariates }: column names
  *   a.analysis  the AnalysisTable (table + which records made each row + what was left out)
  *   a.cleaned   the cleaned records (raw + log); a.raw the raw ones; a.conflicts

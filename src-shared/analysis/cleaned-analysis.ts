@@ -7,13 +7,15 @@ import type { SheetGrid } from '../project/sheet-grid';
 import type { SiteSheetLink } from '../project/site-sheet-link';
 import { analysisTableOf } from './analysis-table';
 import { dataKey } from './data-key';
-import { commonEffortUnit, rawRecordsOf } from './loaded-records';
+import { commonEffortUnit, rawRecordsOf, visitCovariatesOf } from './loaded-records';
 import { siteAttributesFromSheet, SiteSheetError, type SiteAttributes } from './site-attributes';
 
 /**
  * The whole way from the imported sources to the analysis table, the same
  * for the app (Models stage) and the command line (project-analysis.ts):
- * raw records -> cleaning log replayed -> site list joined -> aggregated.
+ * raw records -> cleaning log replayed -> site list joined -> aggregated
+ * (visit covariates combined over each row's visits; their columns are
+ * listed in `analysis.visitCovariates`).
  */
 export interface SiteSheet {
   readonly link: SiteSheetLink;
@@ -66,7 +68,7 @@ export function cleanedAnalysisOf(sources: readonly LoadedSource[], log: EditLog
   const { records: cleaned, conflicts } = applyLog(raw, log);
   const effortUnit = commonEffortUnit(sources);
   const { sites, covariates, problems } = readSites(siteSheet);
-  const analysis = analysisTableOf(cleaned, effortUnit, sites, covariates);
+  const analysis = analysisTableOf(cleaned, effortUnit, sites, covariates, visitCovariatesOf(sources));
   const has = (name: string) => analysis.table.columns.some((c) => c.name === name);
   const roles: AnalysisRoles = {
     site: 'site',

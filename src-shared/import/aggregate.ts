@@ -1,5 +1,6 @@
 import { columnFromNumbers, columnFromTexts, type DataTable, type TableColumn } from '../data/table';
 import type { CountRecord } from './records';
+import { combineVisits, covariateKind, type VisitCovariateColumn } from './visit-covariate-rule';
 
 /**
  * The analysis table: visits aggregated to one row per site x season x
@@ -21,6 +22,11 @@ import type { CountRecord } from './records';
  * A site x season x species with no usable count (all not surveyed, or only
  * "present") gets no row. `sources[k]` lists the indices (into the records
  * given) of the records analysis row k was made from.
+ *
+ * Visit covariates (options.visitCovariates) are combined over the visits a
+ * row uses, by the rule in visit-covariate-rule.ts: numbers by their mean
+ * (with rule max: the value of the visit that gave the count), texts only
+ * where the visits agree.
  */
 export type AggregateRule = 'sum' | 'max' | 'mean';
 
@@ -31,6 +37,8 @@ export interface AggregateOptions {
   readonly hasArea?: boolean;
   /** Covariate names to carry (the first value within a group); default: all seen. */
   readonly covariates?: readonly string[];
+  /** Visit covariates to carry: the name in the records' `visitCovariates` and the table column to write; default none. */
+  readonly visitCovariates?: readonly { readonly name: string; readonly column: string }[];
 }
 
 export interface AnalysisTable {
@@ -39,6 +47,8 @@ export interface AnalysisTable {
   readonly rule: AggregateRule;
   readonly effortColumn?: string;
   readonly excluded: { readonly notSurveyed: number; readonly invalid: number; readonly presentUncounted: number };
+  /** The visit covariates' columns, in the order asked for. */
+  readonly visitCovariates: readonly VisitCovariateColumn[];
 }
 
 const effortColumnNames: Record<string, string> = { hours: 'effort_h', km: 'effort_km', 'trap-nights': 'effort_trap_nights', visits: 'effort_visits', points: 'effort_points' };
@@ -91,6 +101,10 @@ export function aggregateRecords(records: readonly CountRecord[], options: Aggre
   const present = new Float64Array(n);
   const covNames = options.covariates ?? [...new Set(records.flatMap((r) => Object.keys(r.covariates)))];
   const cov = covNames.map(() => new Array<string>(n).fill(''));
+  const visitCovs = (options.visitCovariates ?? []).map((v) => {
+    const kind = covariateKind(records.map((r) => r.visitCovariates?.[v.name] ?? null));
+    return { ...v, kind, numbers: new Float64Array(n).fill(Number.NaN), texts: new Array<string>(n).fill(''), disagreeing: 0 };
+  });
   const sources: number[][] = [];
   list.forEach((g, k) => {
     const used = g.used.map((i) => records[i]);
@@ -100,6 +114,7 @@ export function aggregateRecords(records: readonly CountRecord[], options: Aggre
     present[k] = g.present;
     atLeast[k] = used.filter((r) => r.status === 'at-least').length;
     approx[k] = used.filter((r) => r.status === 'approximate').length;
+    let covariateVisits = used;
     if (options.rule === 'sum') {
       count[k] = counts.reduce((s, c) => s + c, 0);
       effort[k] = efforts.reduce((s, e) => s + e, 0);
@@ -108,6 +123,7 @@ export function aggregateRecords(records: readonly CountRecord[], options: Aggre
       for (let j = 1; j < counts.length; j++) if (counts[j] > counts[best]) best = j;
       count[k] = counts[best];
       effort[k] = efforts[best];
+      covariateVisits = [used[best]];
     } else {
       count[k] = counts.reduce((s, c) => s + c, 0) / counts.length;
       effort[k] = efforts.reduce((s, e) => s + e, 0) / efforts.length;
@@ -118,6 +134,12 @@ export function aggregateRecords(records: readonly CountRecord[], options: Aggre
       const src = g.all.map((i) => records[i].covariates[name]).find((v) => v !== undefined && v !== '');
       cov[c][k] = src ?? '';
     });
+    for (const v of visitCovs) {
+      const { value, disagree } = combineVisits(covariateVisits.map((r) => r.visitCovariates?.[v.name] ?? null), v.kind);
+      if (typeof value === 'number') v.numbers[k] = value;
+      else if (value !== null) v.texts[k] = value;
+      if (disagree) v.disagreeing++;
+    }
     sources.push(g.used);
   });
   const columns: TableColumn[] = [
@@ -151,5 +173,7 @@ export function aggregateRecords(records: readonly CountRecord[], options: Aggre
   covNames.forEach((name, c) => {
     if (!columns.some((col) => col.name === name)) columns.push(columnFromTexts(name, cov[c]));
   });
-  return { table: { nrows: n, columns }, sources, rule: options.rule, effortColumn, excluded };
+  for (const v of visitCovs) columns.push(v.kind === 'number' ? columnFromNumbers(v.column, v.numbers) : columnFromTexts(v.column, v.texts));
+  const visitCovariates = visitCovs.map(({ name, column, kind, disagreeing }) => ({ name, column, kind, disagreeing }));
+  return { table: { nrows: n, columns }, sources, rule: options.rule, effortColumn, excluded, visitCovariates };
 }
