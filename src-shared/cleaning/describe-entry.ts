@@ -2,6 +2,7 @@ import type { EditEntry, EditKind } from './edit-entry';
 import type { EntryStatus } from './edit-log';
 import { entryRecordIds } from './log-filter';
 import type { CleaningRecord, FieldValue } from './record';
+import { covariateOfField } from '../import/visit-covariates';
 
 /**
  * The words for a cleaning log entry, one wording for the screen's change
@@ -50,7 +51,7 @@ export const kindWords: Record<EditKind, string> = {
 export const statusWords: Record<EntryStatus, string> = { 'in-effect': 'in effect', reverted: 'reverted', undone: 'undone' };
 
 function fieldWord(field: string): string {
-  return fieldNames[field] ?? field;
+  return fieldNames[field] ?? covariateOfField(field) ?? field;
 }
 
 export function showValue(v: FieldValue | undefined): string {

@@ -123,6 +123,13 @@ export function RecordsGrid({ records, set, filter, outliers = null, effortUnit,
       text('season', 'Season', 76),
       text('visit', 'Visit', 60),
       text('observer', 'Observer', 86),
+      // The visit covariates of the counts sheet (water temperature, wind ...), one column each, edited like the fields above.
+      ...set.covariates.map((c): ColDef<CleaningRecord> => ({
+        colId: c.field, headerName: c.name, width: Math.max(96, Math.min(180, 16 + c.name.length * 8)), editable: true, cellClassRules: editedRule(c.field),
+        valueGetter: (p) => p.data?.fields[c.field] ?? null,
+        headerTooltip: `Recorded on each visit (from the counts sheet). Double-click a cell to correct it; the change goes into the log and to every record of the visit's row.`,
+        ...(c.numeric ? { type: 'rightAligned', valueFormatter: numberText } : {}),
+      })),
       { ...text('status', 'Reading', 120), valueFormatter: (p) => statusWords[String(p.value)] ?? String(p.value ?? '') },
       { colId: 'excluded', headerName: 'Left out because', width: 200, valueGetter: (p) => p.data?.excluded ?? '' },
       {

@@ -17,6 +17,7 @@ import { LinkedRecordsNote } from '../models/diagnostics/LinkedRecordsNote';
 import { useModelOutliers } from '../models/diagnostics/model-outliers';
 import { dataKey } from '@shared/analysis/data-key';
 import { readEdit } from './edit-values';
+import { covariateOfField } from '@shared/import/visit-covariates';
 import type { ProjectControls } from './use-project';
 import { useSiteListAction } from './site-list/use-site-list-action';
 
@@ -97,14 +98,14 @@ export function RecordsView({ controls }: { controls: ProjectControls }) {
     (recordId: string, field: string, typed: unknown) => {
       const rec = cleaned?.byId.get(recordId);
       if (!rec) return;
-      const reading = readEdit(field, typed);
+      const reading = readEdit(field, typed, set.covariates);
       if (!reading.ok) {
         setNote(reading.message);
         return;
       }
       setNote(null);
-      // Site, date and effort belong to the visit: the correction goes to every record of its row.
-      const ids = visitFields.has(field) ? (set.visitOf.get(recordId) ?? [recordId]) : [recordId];
+      // Site, date, effort and the visit covariates belong to the visit: the correction goes to every record of its row.
+      const ids = visitFields.has(field) || covariateOfField(field) !== null ? (set.visitOf.get(recordId) ?? [recordId]) : [recordId];
       const drafts = ids.flatMap((id) => {
         const old = cleaned?.byId.get(id)?.fields[field] ?? null;
         return old === reading.value ? [] : [{ kind: 'set-value' as const, recordId: id, field, old, new: reading.value, ...because }];

@@ -7,7 +7,8 @@ import type { RolesQuestion } from './use-project';
 /**
  * Which column is which, chosen by hand when the headers do not tell: one
  * part per column; count columns are either one per species (wide sheets)
- * or a species column plus a count column (long sheets).
+ * or a species column plus a count column (long sheets); any number of
+ * columns can be visit covariates (water temperature, wind ...).
  */
 const parts = [
   ['', 'not used'],
@@ -20,6 +21,7 @@ const parts = [
   ['speciesColumn', 'counts of one species'],
   ['species', 'species name (long sheet)'],
   ['count', 'count (long sheet)'],
+  ['covariate', 'recorded per visit (covariate)'],
 ] as const;
 type Part = (typeof parts)[number][0];
 
@@ -40,6 +42,8 @@ function rolesFrom(choice: Record<string, Part>, unit: EffortUnit | ''): { roles
     if (h) roles[p] = h;
   }
   if (roles.effort && unit) roles.effortUnit = unit;
+  const covariates = of('covariate');
+  if (covariates.length) roles.covariates = covariates;
   if (speciesColumns.length) roles.speciesColumns = speciesColumns;
   else Object.assign(roles, { species, count });
   return { roles };

@@ -1,6 +1,7 @@
 import type { FieldValue } from '@shared/cleaning/record';
 import { parseNumber } from '@shared/data/table';
 import { parseTextDate } from '@shared/import/text-dates';
+import { covariateOfField } from '@shared/import/visit-covariates';
 
 /**
  * Reads what the analyst typed into a grid cell as the field's value, or says
@@ -8,8 +9,23 @@ import { parseTextDate } from '@shared/import/text-dates';
  */
 export type EditReading = { ok: true; value: FieldValue } | { ok: false; message: string };
 
-export function readEdit(field: string, typed: unknown): EditReading {
+/**
+ * A visit covariate (field `cov:<name>`): blank is allowed (the visit has no
+ * value); a number column takes numbers only ("12,5" read as 12.5, as the
+ * import reads a decimal comma), a text column any text.
+ */
+function readCovariate(name: string, text: string, numeric: boolean): EditReading {
+  if (text === '') return { ok: true, value: null };
+  const n = Number.isNaN(parseNumber(text)) ? parseNumber(text, ',') : parseNumber(text);
+  if (Number.isFinite(n)) return { ok: true, value: numeric ? n : text };
+  if (numeric) return { ok: false, message: `"${text}" is not a number, and "${name}" holds numbers. Type a number (12.5 or 12,5), or clear the cell if the visit has no value.` };
+  return { ok: true, value: text };
+}
+
+export function readEdit(field: string, typed: unknown, covariates: readonly { field: string; name: string; numeric: boolean }[] = []): EditReading {
   const text = typed === null || typed === undefined ? '' : String(typed).trim();
+  const covariate = covariateOfField(field);
+  if (covariate !== null) return readCovariate(covariate, text, covariates.find((c) => c.field === field)?.numeric ?? false);
   switch (field) {
     case 'count': {
       if (text === '') return { ok: true, value: null };

@@ -1,6 +1,7 @@
 import type { CleaningRecord } from '@shared/cleaning/record';
 import type { LoadedSource, RecordFinding } from '@shared/host/contract';
-import { commonEffortUnit, recordsOfSource } from '@shared/analysis/loaded-records';
+import { commonEffortUnit, recordsOfSource, visitCovariatesOf } from '@shared/analysis/loaded-records';
+import { covariateField } from '@shared/import/visit-covariates';
 
 /**
  * The raw records of every source in the project, as the cleaning log
@@ -27,6 +28,14 @@ export interface RecordSet {
   visitOf: Map<string, string[]>;
   /** Unit of the effort column, when the sources agree on one. */
   effortUnit?: string;
+  /** The visit covariates of the sources: name, record field, and whether every value is a number. */
+  covariates: VisitCovariate[];
+}
+
+export interface VisitCovariate {
+  name: string;
+  field: string;
+  numeric: boolean;
 }
 
 export function buildRecordSet(sources: readonly LoadedSource[]): RecordSet {
@@ -61,7 +70,11 @@ export function buildRecordSet(sources: readonly LoadedSource[]): RecordSet {
     list.push(id);
     visitOf.set(id, list);
   }
-  return { raw, rawById: new Map(raw.map((x) => [x.id, x])), places, findings, findingsOf, fieldColumns, visitOf, effortUnit: commonEffortUnit(sources) };
+  const covariates = visitCovariatesOf(sources).map((name) => {
+    const field = covariateField(name);
+    return { name, field, numeric: raw.every((r) => r.fields[field] === undefined || r.fields[field] === null || typeof r.fields[field] === 'number') };
+  });
+  return { raw, rawById: new Map(raw.map((x) => [x.id, x])), places, findings, findingsOf, fieldColumns, visitOf, effortUnit: commonEffortUnit(sources), covariates };
 }
 
 /** "Counts, row 23, col. G" (with the file when asked). */
