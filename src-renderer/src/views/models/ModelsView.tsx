@@ -10,6 +10,7 @@ import { predictorColumns, specOf, speciesOf, tableRoles, type SpecDraft, type T
 import type { DataTable } from '@shared/data/table';
 import { fitTableFor, rowsOfSpecies } from './fit-table';
 import { checkSpec } from '@shared/model/spec-checks';
+import { blankPredictorNotes } from '@shared/model/blank-predictors';
 import { modelEquation } from './equation';
 import type { ModelsControls, RunningFit } from './use-models';
 import { modelsOf } from './fitted-model';
@@ -45,6 +46,8 @@ function FitProgress({ running, onCancel }: { running: RunningFit; onCancel: () 
 interface Built {
   spec: ModelSpec | null;
   problems: string[];
+  /** Rows blank predictor cells leave out (notes; the fit still runs). */
+  notes: string[];
   leftOut: number;
   /** The draft's species that the table has. */
   chosen: string[];
@@ -59,16 +62,16 @@ const tableParts = memoLast((table: DataTable | undefined, effortColumn: string 
 
 const speciesChecks = memoLast((draft: SpecDraft, table: DataTable | undefined, roles: TableRoles | null, species: readonly string[]): Built => {
   const chosenSpecies = draft.species.filter((s) => species.includes(s));
-  if (!table || !roles) return { spec: null, problems: [], leftOut: 0, chosen: chosenSpecies };
+  if (!table || !roles) return { spec: null, problems: [], notes: [], leftOut: 0, chosen: chosenSpecies };
   let spec: ModelSpec;
   try {
     spec = specOf({ ...draft, species: chosenSpecies }, roles);
   } catch (err) {
-    return { spec: null, problems: [err instanceof Error ? err.message : String(err)], leftOut: 0, chosen: chosenSpecies };
+    return { spec: null, problems: [err instanceof Error ? err.message : String(err)], notes: [], leftOut: 0, chosen: chosenSpecies };
   }
   const prepared = fitTableFor(table, spec, chosenSpecies, draft.dropBadOffsetRows);
   const rows = chosenSpecies.map((s) => ({ species: s, table: rowsOfSpecies(prepared.table, [s]) }));
-  return { spec, problems: checkSpec(spec, rows, roles), leftOut: prepared.leftOut, chosen: chosenSpecies };
+  return { spec, problems: checkSpec(spec, rows, roles), notes: blankPredictorNotes(spec, rows, roles), leftOut: prepared.leftOut, chosen: chosenSpecies };
 });
 
 /** The species tab shown: the analyst's pick while it has models, else the first with any. */
@@ -161,6 +164,8 @@ export function ModelsView({ controls, models: m }: { controls: ProjectControls;
           problems={built.problems}
           busy={!!m.running}
           leftOut={built.leftOut}
+          visitCovariates={analysis?.visitCovariates}
+          notes={built.notes}
           note={note}
           progress={m.running ? <FitProgress running={m.running} onCancel={m.cancel} /> : undefined}
           onFit={() => built.spec && void m.fit(table, built.spec, chosenSpecies, key, draft.dropBadOffsetRows)}

@@ -6,6 +6,8 @@ import { PredictorPicker } from './builder/PredictorPicker';
 import { InteractionPicker } from './builder/InteractionPicker';
 import { SeasonTerm } from './builder/SeasonTerm';
 import { ModelEquation } from './builder/ModelEquation';
+import { VisitCovariatesHint } from './builder/VisitCovariatesHint';
+import type { VisitCovariateColumn } from '@shared/import/visit-covariate-rule';
 
 /**
  * The model builder: species, distribution, predictors, offsets, site and
@@ -23,6 +25,10 @@ interface Props {
   busy: boolean;
   /** Rows left out for a missing offset (when the analyst asked for it). */
   leftOut: number;
+  /** The analysis table's columns recorded per visit (how their rows were combined). */
+  visitCovariates?: readonly VisitCovariateColumn[];
+  /** What blank predictor cells leave out of the fit (notes, not problems). */
+  notes?: readonly string[];
   /** Shown in place of the Fit button while a fit runs (progress and Cancel). */
   progress?: ReactNode;
   /** The last fit's outcome in a sentence (done, cancelled, failed). */
@@ -30,7 +36,7 @@ interface Props {
   onFit: () => void;
 }
 
-export function SpecBuilder({ draft, onChange, species, columns, roles, equation, problems, busy, leftOut, progress, note, onFit }: Props) {
+export function SpecBuilder({ draft, onChange, species, columns, roles, equation, problems, busy, leftOut, visitCovariates = [], notes = [], progress, note, onFit }: Props) {
   const set = <K extends keyof SpecDraft>(k: K, v: SpecDraft[K]) => onChange({ ...draft, [k]: v });
   const chosen = new Set(draft.species);
   const all = species.length > 0 && species.every((s) => chosen.has(s));
@@ -127,6 +133,7 @@ export function SpecBuilder({ draft, onChange, species, columns, roles, equation
         {hasZeroPart(draft.distribution) && (
           <PredictorPicker label={draft.distribution.startsWith('hurdle') ? 'Zero part (chance of a non-zero count)' : 'Zero part (chance of an extra zero)'} columns={columns} chosen={draft.zeroPredictors} onChange={(p) => set('zeroPredictors', p)} />
         )}
+        <VisitCovariatesHint covariates={visitCovariates} notes={notes} />
       </fieldset>
 
       {/* The model written out stays in view beside the Fit button while the choices above scroll. */}
