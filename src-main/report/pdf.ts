@@ -9,6 +9,7 @@ import type { ChartSvgs } from '@shared/report/html';
 import type { Block, ReportDocument, Section, TableBlock } from '@shared/report/model';
 import { cellText } from '@shared/report/number-format';
 import { pdfFonts } from './pdf-fonts';
+import { numberPages } from './pdf-page-numbers';
 
 const MARGIN = 50;
 const INK = '#1f2933';
@@ -194,7 +195,6 @@ export function reportPdf(report: ReportDocument, svgs: ChartSvgs, options: PdfO
   const doc = new PDFDocument({
     size: 'A4',
     margins: { top: MARGIN, bottom: MARGIN + 10, left: MARGIN, right: MARGIN },
-    bufferPages: true,
     info: { Title: report.title, Creator: 'Tallywise', CreationDate: new Date(report.createdAt) },
   });
   const chunks: Buffer[] = [];
@@ -206,6 +206,7 @@ export function reportPdf(report: ReportDocument, svgs: ChartSvgs, options: PdfO
   doc.registerFont('body', fonts.body);
   doc.registerFont('bold', fonts.bold);
   doc.registerFont('mono', fonts.mono);
+  const pages = numberPages(doc, report.title, { font: 'body', size: 8, color: MUTED, margin: MARGIN, fromBottom: MARGIN - 14 });
   const ctx: Ctx = { doc, width: doc.page.width - 2 * MARGIN, svgs };
   const refNumber = (k: string) => report.references.findIndex((r) => r.key === k) + 1;
   text(ctx, report.title, { font: 'bold', size: 20, gap: 0.2 });
@@ -217,20 +218,7 @@ export function reportPdf(report: ReportDocument, svgs: ChartSvgs, options: PdfO
     report.references.forEach((r, i) => text(ctx, `${i + 1}. ${r.text}`, { size: 9, gap: 0.3 }));
   }
   section(ctx, report.appendix, refNumber, true);
-  pageNumbers(doc, report.title);
+  pages.finish();
   doc.end();
   return done;
-}
-
-/** "Title — page i of n" in the foot of every page. */
-function pageNumbers(doc: PDFKit.PDFDocument, title: string): void {
-  const range = doc.bufferedPageRange();
-  for (let i = range.start; i < range.start + range.count; i++) {
-    doc.switchToPage(i);
-    const keep = doc.page.margins.bottom;
-    doc.page.margins.bottom = 0;
-    doc.font('body').fontSize(8).fillColor(MUTED);
-    doc.text(`${title} — page ${i + 1} of ${range.count}`, MARGIN, doc.page.height - MARGIN + 14, { width: doc.page.width - 2 * MARGIN, align: 'center', lineBreak: false });
-    doc.page.margins.bottom = keep;
-  }
 }
