@@ -4,6 +4,7 @@ import { closeBrowser, openApp } from './harness';
 import { openDemoModels } from './demo-models';
 import { fitDistribution as fit, leaveOutRowsWithoutOffset } from './models-steps';
 import { chartBox, seriesOf } from './chart-probe';
+import { gridRows, linkedLabel } from './records-probe';
 import { DEMO_TRUTH } from '@shared/demo/truth';
 
 // The diagnostic charts from the keyboard alone, in Chromium on the demo
@@ -16,24 +17,6 @@ import { DEMO_TRUTH } from '@shared/demo/truth';
 afterAll(closeBrowser);
 
 const toad = DEMO_TRUTH.species.find((s) => s.key === 'common_toad')!;
-
-async function gridRows(page: Page): Promise<{ site: string; season: string; species: string }[]> {
-  const grid = page.getByTestId('records-grid');
-  await grid.locator('.ag-row .ag-cell[col-id="site"]').first().waitFor({ timeout: 30_000 });
-  return grid.locator('.ag-row:has(.ag-cell[col-id="site"])').evaluateAll((rows) =>
-    rows.map((r) => ({
-      site: (r.querySelector('[col-id="site"]')?.textContent ?? '').trim(),
-      season: (r.querySelector('[col-id="season"]')?.textContent ?? '').trim(),
-      species: (r.querySelector('[col-id="species"]')?.textContent ?? '').trim(),
-    })),
-  );
-}
-
-async function linkedLabel(page: Page): Promise<string> {
-  const select = page.getByLabel('Filter by flag');
-  await expect.poll(() => select.inputValue()).toBe('linked');
-  return (await select.locator('option[value="linked"]').textContent()) ?? '';
-}
 
 /** The test id of the chart that holds the focus (its figure's), or '' when the focus is elsewhere. */
 function focusedChart(page: Page): Promise<string> {

@@ -1,10 +1,10 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
-import type { Page } from 'playwright-core';
 import { closeBrowser, openApp } from './harness';
 import { openDemoModels } from './demo-models';
 import { fitDistribution as fit, leaveOutRowsWithoutOffset } from './models-steps';
 import { categoriesOf, clickAt, seriesOf } from './chart-probe';
+import { gridRows, linkedLabel } from './records-probe';
 import { DEMO_TRUTH } from '@shared/demo/truth';
 
 // The diagnostic charts of the Models stage in Chromium, on the demo
@@ -19,24 +19,6 @@ afterAll(closeBrowser);
 const toad = DEMO_TRUTH.species.find((s) => s.key === 'common_toad')!;
 const seasons = DEMO_TRUTH.lastSeason - DEMO_TRUTH.firstSeason + 1;
 
-/** Site and season of every record row the grid shows (the linked records are few, so all are drawn). */
-async function gridRows(page: Page): Promise<{ site: string; season: string; species: string }[]> {
-  const grid = page.getByTestId('records-grid');
-  await grid.locator('.ag-row .ag-cell[col-id="site"]').first().waitFor({ timeout: 30_000 });
-  return grid.locator('.ag-row:has(.ag-cell[col-id="site"])').evaluateAll((rows) =>
-    rows.map((r) => ({
-      site: (r.querySelector('[col-id="site"]')?.textContent ?? '').trim(),
-      season: (r.querySelector('[col-id="season"]')?.textContent ?? '').trim(),
-      species: (r.querySelector('[col-id="species"]')?.textContent ?? '').trim(),
-    })),
-  );
-}
-
-async function linkedLabel(page: Page): Promise<string> {
-  const select = page.getByLabel('Filter by flag');
-  await expect.poll(() => select.inputValue()).toBe('linked');
-  return (await select.locator('option[value="linked"]').textContent()) ?? '';
-}
 
 describe('the diagnostic charts', () => {
   it('draws every chart with its series, links points to records, and saves PNG and SVG', async () => {
