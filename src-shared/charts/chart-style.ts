@@ -6,6 +6,7 @@
  * same picture.
  */
 import type { EChartsOption, LineSeriesOption } from 'echarts';
+import { FRAME } from './chart-layout';
 import { greys } from './palette';
 
 export type ChartOption = EChartsOption;
@@ -27,7 +28,12 @@ export interface FrameParts {
   readonly legendNames?: readonly string[];
 }
 
-/** Title, legend, grid, tooltip and text style. */
+/**
+ * Title, legend, grid, tooltip and text style. Where the legend and the
+ * plot start depends on how the text wraps: chart-layout.ts places them
+ * (the builders for the report's width, the screen and the report again
+ * for the width they draw at).
+ */
 export function chartFrame(parts: FrameParts): ChartOption {
   return {
     animation: false,
@@ -36,16 +42,26 @@ export function chartFrame(parts: FrameParts): ChartOption {
     title: {
       text: parts.title,
       subtext: parts.subtitle ?? '',
-      left: 12,
-      top: 8,
-      textStyle: { ...text, fontSize: 15, fontWeight: 'bold' },
-      subtextStyle: { color: greys.axis, fontSize: 11, width: 640, overflow: 'break' },
+      left: FRAME.side,
+      top: FRAME.titleTop,
+      itemGap: FRAME.titleGap,
+      textStyle: { ...text, fontSize: FRAME.titleSize, lineHeight: FRAME.titleLine, fontWeight: 'bold' },
+      subtextStyle: { color: greys.axis, fontSize: FRAME.subtitleSize, lineHeight: FRAME.subtitleLine, overflow: 'break' },
     },
     legend:
       parts.legend === false
         ? { show: false }
-        : { show: true, top: parts.subtitle ? 66 : 38, left: 12, textStyle: { color: greys.axis }, itemWidth: 16, itemHeight: 10, ...(parts.legendNames ? { data: [...parts.legendNames] } : {}) },
-    grid: { left: 64, right: 24, top: parts.subtitle ? 104 : 72, bottom: 56, containLabel: false },
+        : {
+            show: true,
+            left: FRAME.side,
+            padding: 0,
+            itemGap: FRAME.legendItemGap,
+            itemWidth: FRAME.legendIconWidth,
+            itemHeight: FRAME.legendIconHeight,
+            textStyle: { color: greys.axis, fontSize: FRAME.legendSize, lineHeight: FRAME.legendLine },
+            ...(parts.legendNames ? { data: [...parts.legendNames] } : {}),
+          },
+    grid: { left: FRAME.gridLeft, right: FRAME.gridRight, bottom: FRAME.gridBottom, containLabel: false },
     tooltip: { trigger: 'item' },
   };
 }
@@ -60,14 +76,26 @@ interface AxisParts {
 const axisLine = { lineStyle: { color: greys.axis } };
 const splitLine = { lineStyle: { color: greys.grid } };
 
+/**
+ * Where an axis's title goes, the same on every chart: the horizontal
+ * axis's centred under its labels; the vertical axis's on a line of its
+ * own above the plot, starting at the axis line and read left to right,
+ * so a long title ("Randomized quantile residual (standard normal scale)")
+ * never runs past the plot's ends as a title turned along the axis does
+ * on a short plot. chart-layout.ts leaves room for it above the grid.
+ */
+export function axisNamePlace(position: 'x' | 'y') {
+  return position === 'x'
+    ? { nameLocation: 'middle' as const, nameGap: 32, nameTextStyle: { color: greys.axis } }
+    : { nameLocation: 'end' as const, nameGap: FRAME.axisNameGap, nameTextStyle: { color: greys.axis, fontSize: FRAME.axisNameSize, lineHeight: FRAME.axisNameLine, align: 'left' as const, verticalAlign: 'bottom' as const } };
+}
+
 /** A numeric axis with its title (units in the title: "Records", "Count per hour"). */
 export function valueAxis(parts: AxisParts, position: 'x' | 'y') {
   return {
     type: parts.log ? ('log' as const) : ('value' as const),
     name: parts.name,
-    nameLocation: 'middle' as const,
-    nameGap: position === 'x' ? 32 : 46,
-    nameTextStyle: { color: greys.axis },
+    ...axisNamePlace(position),
     axisLine: { show: true, onZero: false, ...axisLine },
     axisLabel: { color: greys.axis },
     splitLine: position === 'y' ? splitLine : { show: false },
@@ -82,9 +110,7 @@ export function categoryAxis(name: string, data: readonly string[]) {
   return {
     type: 'category' as const,
     name,
-    nameLocation: 'middle' as const,
-    nameGap: 32,
-    nameTextStyle: { color: greys.axis },
+    ...axisNamePlace('x'),
     data: [...data],
     axisLine,
     axisTick: { alignWithLabel: true },

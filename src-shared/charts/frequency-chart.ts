@@ -1,6 +1,7 @@
 /** Observed and expected count frequencies, several models overlaid. */
 import type { CountFrequencies } from '../diagnostics/count-frequencies';
 import type { ChartOption } from './chart-style';
+import { layoutChart } from './chart-layout';
 import { categoryAxis, chartFrame, chartNumber, valueAxis } from './chart-style';
 import { greys, seriesColour, seriesMark } from './palette';
 
@@ -9,7 +10,7 @@ export const FREQUENCY_TITLE = 'Do the counts fit? Observed and expected frequen
 export function frequencyChart(freq: CountFrequencies): ChartOption {
   const notes = [...new Set(freq.models.map((m) => m.note).filter((n): n is string => n !== null))];
   const observed = freq.observed.map((value, k) => ({ value, count: freq.labels[k], rows: freq.rowsByBin[k] }));
-  return {
+  return layoutChart({
     ...chartFrame({ title: FREQUENCY_TITLE, subtitle: [`${freq.nobs} records; the last bar holds every count of ${freq.tailFrom} or more.`, ...notes].join(' ') }),
     xAxis: categoryAxis('Count per record', freq.labels),
     yAxis: valueAxis({ name: 'Records', min: 0 }, 'y'),
@@ -27,5 +28,5 @@ export function frequencyChart(freq: CountFrequencies): ChartOption {
         lineStyle: { color: seriesColour(k), width: 2, type: seriesMark(k).dash },
       })),
     ],
-  };
+  });
 }

@@ -5,6 +5,7 @@
  * trend output (shared/cli-contract.md).
  */
 import type { ChartOption } from './chart-style';
+import { layoutChart } from './chart-layout';
 import { bandSeries, categoryAxis, chartFrame, chartNumber, horizontalLine, valueAxis } from './chart-style';
 import { seriesColour } from './palette';
 
@@ -30,7 +31,7 @@ export function indexTitle(subject?: string): string {
 
 export function indexChart(points: readonly IndexPoint[], parts: IndexChartParts = {}): ChartOption {
   const times = points.map((p) => String(p.time));
-  return {
+  return layoutChart({
     ...chartFrame({ title: indexTitle(parts.subject), subtitle: parts.note ?? 'Shaded: 95% limits of the index.', legendNames: ['95% limits', 'Index'] }),
     xAxis: { ...categoryAxis(parts.timeName ?? 'Season', times), boundaryGap: false },
     yAxis: valueAxis({ name: 'Index (base year = 100)', min: 0 }, 'y'),
@@ -49,5 +50,5 @@ export function indexChart(points: readonly IndexPoint[], parts: IndexChartParts
         z: 3,
       },
     ],
-  };
+  });
 }

@@ -6,6 +6,7 @@
  */
 import type { SiteInfluence } from '../diagnostics/site-influence';
 import type { ChartOption } from './chart-style';
+import { layoutChart } from './chart-layout';
 import { categoryAxis, chartFrame, chartNumber, pickedEmphasis, valueAxis } from './chart-style';
 import { attention, greys, seriesColour } from './palette';
 
@@ -31,10 +32,8 @@ export function influenceChart(infl: SiteInfluence, meaning?: string): ChartOpti
     subtitle: `${meaning ? `${infl.coefficient} is ${meaning}. ` : ''}${infl.methodNote} Estimate ${chartNumber(infl.estimate)}, standard error ${chartNumber(se)}.${largestNote}${missing ? ` ${missing} site${missing > 1 ? 's' : ''} without a value.` : ''}`,
     legend: false,
   });
-  return {
+  return layoutChart({
     ...frame,
-    // Room under the title for a subtitle of three lines.
-    grid: { ...(frame.grid as object), top: 120 },
     xAxis: categoryAxis(infl.siteColumn, infl.sites.map((s) => s.site)),
     yAxis: valueAxis({ name: `Change in ${infl.coefficient} (linear-predictor scale)` }, 'y'),
     series: [
@@ -56,5 +55,5 @@ export function influenceChart(infl: SiteInfluence, meaning?: string): ChartOpti
         },
       },
     ],
-  };
+  });
 }

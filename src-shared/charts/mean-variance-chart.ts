@@ -6,6 +6,7 @@
  */
 import type { MeanVariance } from '../diagnostics/mean-variance';
 import type { ChartOption } from './chart-style';
+import { layoutChart } from './chart-layout';
 import { chartFrame, chartNumber, pickedEmphasis, valueAxis } from './chart-style';
 import { greys, seriesColour } from './palette';
 
@@ -25,7 +26,7 @@ export function meanVarianceChart(mv: MeanVariance, negbinFrom?: string): ChartO
     mv.negbin ? '' : 'Fit a negative binomial to see its curve.',
   ];
   const curve = (pts: { mean: number; variance: number }[]) => pts.map((p) => [chartNumber(p.mean), chartNumber(p.variance)]);
-  return {
+  return layoutChart({
     ...chartFrame({ title: MEAN_VARIANCE_TITLE, subtitle: notes.filter(Boolean).join(' ') }),
     xAxis: valueAxis({ name: `Mean count${unit} (log scale)`, log: true }, 'x'),
     yAxis: valueAxis({ name: `Variance${unit} (log scale)`, log: true }, 'y'),
@@ -54,5 +55,5 @@ export function meanVarianceChart(mv: MeanVariance, negbinFrom?: string): ChartO
           ]
         : []),
     ],
-  };
+  });
 }

@@ -6,6 +6,7 @@
  */
 import type { QqEnvelope } from '../diagnostics/qq-envelope';
 import type { ChartOption } from './chart-style';
+import { layoutChart } from './chart-layout';
 import { bandSeries, chartFrame, chartNumber, pickedEmphasis, valueAxis } from './chart-style';
 import { attention, attentionSymbol, greys, seriesColour } from './palette';
 import { POINT_ENCODE } from './residual-charts';
@@ -18,7 +19,7 @@ export function qqChart(env: QqEnvelope, modelLabel: string): ChartOption {
   const lo = pts.length ? pts[0].theoretical : -3;
   const hi = pts.length ? pts[pts.length - 1].theoretical : 3;
   const share = Math.round(env.outsideShare * 1000) / 10;
-  return {
+  return layoutChart({
     ...chartFrame({
       title: QQ_TITLE,
       subtitle: `${modelLabel}: ${share}% of ${pts.length} points outside the ${Math.round(env.level * 100)}% envelope (${env.simulations} simulations). ${env.method}`,
@@ -50,5 +51,5 @@ export function qqChart(env: QqEnvelope, modelLabel: string): ChartOption {
       { id: 'inside', name: 'Residuals', type: 'scatter', symbolSize: 5, itemStyle: { color: seriesColour(0) }, encode: POINT_ENCODE, emphasis: pickedEmphasis, data: pts.filter((p) => !p.outside).map(point), z: 3 },
       { id: 'outside', name: 'Outside the envelope', type: 'scatter', symbol: attentionSymbol, symbolSize: 8, itemStyle: { color: attention }, encode: POINT_ENCODE, emphasis: pickedEmphasis, data: pts.filter((p) => p.outside).map(point), z: 4 },
     ],
-  };
+  });
 }

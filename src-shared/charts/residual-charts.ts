@@ -6,6 +6,7 @@
 import type { QuantileResiduals } from '../diagnostics/quantile-residuals';
 import type { ResidualGroups } from '../diagnostics/residual-groups';
 import type { ChartOption } from './chart-style';
+import { layoutChart } from './chart-layout';
 import { categoryAxis, chartFrame, chartNumber, pickedEmphasis, valueAxis } from './chart-style';
 import { greys, seriesColour } from './palette';
 
@@ -37,18 +38,18 @@ function subtitle(res: QuantileResiduals): string {
 export function residualsVsFittedChart(res: QuantileResiduals, modelLabel: string): ChartOption {
   const positive = res.fitted.every((f) => f > 0);
   const data = Array.from(res.residual, (r, i) => [chartNumber(res.fitted[i]), chartNumber(r), res.rows[i]]);
-  return {
+  return layoutChart({
     ...chartFrame({ title: RESIDUALS_FITTED_TITLE, subtitle: subtitle(res) }),
     xAxis: valueAxis({ name: positive ? 'Fitted count per record (log scale)' : 'Fitted count per record', log: positive }, 'x'),
     yAxis: valueAxis({ name: RESIDUAL_AXIS }, 'y'),
     series: [{ id: 'residuals', name: modelLabel, type: 'scatter', symbolSize: 5, itemStyle: { color: seriesColour(0), opacity: 0.7 }, encode: POINT_ENCODE, data, emphasis: pickedEmphasis, markLine: referenceLines() }],
-  };
+  });
 }
 
 export function residualsByGroupChart(res: QuantileResiduals, groups: ResidualGroups, modelLabel: string): ChartOption {
   // x is the level's name (a category axis takes names), so the tooltip names the site or season.
   const data = Array.from(res.residual, (r, i) => [groups.levels[groups.levelOf[i]], chartNumber(r), res.rows[i]]);
-  return {
+  return layoutChart({
     ...chartFrame({ title: residualsTitle(groups.column), subtitle: subtitle(res) }),
     xAxis: categoryAxis(groups.column, groups.levels),
     yAxis: valueAxis({ name: RESIDUAL_AXIS }, 'y'),
@@ -65,5 +66,5 @@ export function residualsByGroupChart(res: QuantileResiduals, groups: ResidualGr
         z: 3,
       },
     ],
-  };
+  });
 }

@@ -6,6 +6,7 @@
  */
 import type { HangingRootogram } from '../diagnostics/rootogram';
 import type { ChartOption } from './chart-style';
+import { layoutChart } from './chart-layout';
 import { categoryAxis, chartFrame, chartNumber, horizontalLine, valueAxis } from './chart-style';
 import { greys, seriesColour, seriesMark } from './palette';
 
@@ -15,7 +16,7 @@ export function rootogramChart(root: HangingRootogram, modelIndex = 0): ChartOpt
   const labels = root.bins.map((b) => b.label);
   const colour = seriesColour(modelIndex);
   const mark = seriesMark(modelIndex);
-  return {
+  return layoutChart({
     ...chartFrame({
       title: ROOTOGRAM_TITLE,
       subtitle: `${root.model}. Bars (square root of the records observed) hang from the curve (square root of those expected); a bar ending below zero means the model expects too few of that count, above zero too many.`,
@@ -58,5 +59,5 @@ export function rootogramChart(root: HangingRootogram, modelIndex = 0): ChartOpt
         markLine: horizontalLine(0, 'zero'),
       },
     ],
-  };
+  });
 }
