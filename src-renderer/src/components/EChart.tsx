@@ -2,6 +2,8 @@ import { useEffect, useId, useMemo, useRef, useState, type KeyboardEvent } from 
 import * as echarts from 'echarts';
 import type { EChartsOption } from 'echarts';
 import { chartSummary } from '@shared/charts/chart-summary';
+import { chartLayout, layoutChart, USUAL_GRID_TOP } from '@shared/charts/chart-layout';
+import { measureOnCanvas } from './canvas-text';
 import { chartPoints, type ChartPoint } from './chart-points';
 import { nextPoint, pointOrder } from './point-keys';
 
@@ -20,6 +22,12 @@ import { nextPoint, pointOrder } from './point-keys';
  * highlighted with its tooltip and described under the chart, and Enter
  * hands it to `onPointClick` as a click would. Escape or leaving the chart
  * lets it go.
+ *
+ * The chart is laid out for its box's width (chart-layout.ts: the title
+ * and legend wrap, the plot starts below them) and is that much taller
+ * when they take more room than usual, so the plot keeps its height. The
+ * line under it keeps room for two lines whatever it says, so choosing a
+ * point never moves what is below.
  */
 export type PointClick = (data: unknown, seriesId: string) => void;
 
@@ -73,12 +81,16 @@ function shortNumber(v: number): string {
   return String(Number(v.toPrecision(3)));
 }
 
-/** The chosen point in words: what it is, where it sits on both axes, its place along the x axis. */
-function pointText(option: EChartsOption, p: ChartPoint, rank: number, n: number, keyboard: ChartKeyboard): string {
+/**
+ * The chosen point in words: what it is and where it sits on both axes
+ * (shown), then its place along the x axis and what Enter does (read out
+ * only: the prompt shown on reaching the chart says what Enter does).
+ */
+function pointText(option: EChartsOption, p: ChartPoint, rank: number, n: number, keyboard: ChartKeyboard): { shown: string; spoken: string } {
   const what = keyboard.describe?.(p);
   const x = p.category ?? shortNumber(p.x);
   const where = `${axisName(option.xAxis) || 'x'} ${x}, ${axisName(option.yAxis) || 'y'} ${shortNumber(p.y)}`;
-  return `${what ? `${what}: ` : ''}${where}. Point ${rank + 1} of ${n} from the left; Enter ${keyboard.action}.`;
+  return { shown: `${what ? `${what}: ` : ''}${where}.`, spoken: ` Point ${rank + 1} of ${n} from the left; Enter ${keyboard.action}.` };
 }
 
 const KEYS_TEXT = 'Arrow keys move between points (left and right along the horizontal axis, up and down by value), Home and End go to the first and last, Page Up and Page Down to the highest and lowest';
@@ -95,7 +107,11 @@ export function EChart({ option, fileName, testId, height = 340, onPointClick, h
   const order = useMemo(() => pointOrder(points), [points]);
   const [active, setActive] = useState<number | null>(null);
   const [focused, setFocused] = useState(false);
+  const [width, setWidth] = useState(0);
   const summary = useMemo(() => chartSummary(option), [option]);
+  const layout = useMemo(() => (width ? chartLayout(option, width, measureOnCanvas) : null), [option, width]);
+  const laid = useMemo(() => (layout ? layoutChart(option, width, layout) : null), [option, width, layout]);
+  const drawn = useRef<EChartsOption | null>(null);
   useEffect(() => {
     const el = box.current;
     if (!el) return;
@@ -103,7 +119,11 @@ export function EChart({ option, fileName, testId, height = 340, onPointClick, h
     chart.current = c;
     el.echartsInstance = c;
     c.on('click', (p) => clicked.current?.(p.data, String(p.seriesId ?? '')));
-    const watcher = new ResizeObserver(() => c.resize());
+    setWidth(el.clientWidth);
+    const watcher = new ResizeObserver(() => {
+      c.resize();
+      setWidth(el.clientWidth);
+    });
     watcher.observe(el);
     return () => {
       watcher.disconnect();
@@ -113,11 +133,20 @@ export function EChart({ option, fileName, testId, height = 340, onPointClick, h
     };
   }, []);
 
+  useEffect(() => setActive(null), [option]);
+
   useEffect(() => {
-    // Drawn on the next frame, so a stage with several charts shows at once.
-    chart.current?.setOption(option, { notMerge: true, lazyUpdate: true });
-    setActive(null);
-  }, [option]);
+    const c = chart.current;
+    if (!c || !laid) return;
+    if (drawn.current !== option) {
+      // A new chart is drawn on the next frame, so a stage with several charts shows at once.
+      c.setOption(laid, { notMerge: true, lazyUpdate: true });
+      drawn.current = option;
+    } else {
+      // The same chart at a new width: only the parts placed for the width change.
+      c.setOption({ title: laid.title, legend: laid.legend, grid: laid.grid, xAxis: laid.xAxis, yAxis: laid.yAxis });
+    }
+  }, [option, laid]);
 
   // The chosen point is highlighted with its tooltip, and let go when another is chosen or the chart is left.
   useEffect(() => {
@@ -132,7 +161,7 @@ export function EChart({ option, fileName, testId, height = 340, onPointClick, h
       c.dispatchAction({ type: 'downplay', ...at });
       c.dispatchAction({ type: 'hideTip' });
     };
-  }, [active, points]);
+  }, [active, points, laid]);
 
   const letGo = () => {
     setActive(null);
@@ -165,7 +194,7 @@ export function EChart({ option, fileName, testId, height = 340, onPointClick, h
   const saveSvg = () => {
     const el = box.current;
     if (!el) return;
-    const url = URL.createObjectURL(new Blob([svgOf(option, el.clientWidth || 800, el.clientHeight || height)], { type: 'image/svg+xml' }));
+    const url = URL.createObjectURL(new Blob([svgOf(laid ?? option, el.clientWidth || 800, el.clientHeight || height)], { type: 'image/svg+xml' }));
     saveHref(url, `${fileName}.svg`);
     setTimeout(() => URL.revokeObjectURL(url), 10_000);
   };
@@ -174,13 +203,15 @@ export function EChart({ option, fileName, testId, height = 340, onPointClick, h
   const title = String((option.title as { text?: string } | undefined)?.text ?? 'Chart');
   const chosen = active !== null ? points[active] : undefined;
   const walking = Boolean(keyboard && points.length);
-  const status = chosen && keyboard ? pointText(option, chosen, order.rankX[active!], points.length, keyboard) : focused && keyboard ? `Choose a point with the arrow keys; Enter ${keyboard.action}.` : hint;
+  // Taller by what the title block and legend take beyond the usual, so the plot keeps its height.
+  const boxHeight = height + Math.max(0, (layout?.gridTop ?? USUAL_GRID_TOP) - USUAL_GRID_TOP);
+  const status = chosen && keyboard ? pointText(option, chosen, order.rankX[active!], points.length, keyboard) : { shown: focused && keyboard ? `Choose a point with the arrow keys; Enter ${keyboard.action}.` : (hint ?? ''), spoken: '' };
   return (
     <figure className="chart" data-testid={testId}>
       <div
         ref={box}
         className="chart-box"
-        style={{ height }}
+        style={{ height: boxHeight }}
         data-series={ids.join(' ')}
         data-points={pointCount(option)}
         {...(chosen ? { 'data-active-point': `${chosen.seriesId}:${chosen.dataIndex}` } : {})}
@@ -193,11 +224,11 @@ export function EChart({ option, fileName, testId, height = 340, onPointClick, h
         {walking && keyboard ? ` ${KEYS_TEXT}; Enter ${keyboard.action}.` : ''}
       </p>
       <figcaption className="chart-actions">
-        {(status || walking) && (
-          <span className="chart-hint" {...(walking ? { role: 'status', 'data-testid': 'chart-point' } : {})}>
-            {status}
-          </span>
-        )}
+        {/* Room for two lines whatever it says; longer text is cut with an ellipsis on screen and read whole by assistive technology. */}
+        <span className="chart-hint" {...(walking ? { role: 'status', 'data-testid': 'chart-point' } : {})}>
+          <span className="chart-hint-text">{status.shown}</span>
+          {status.spoken && <span className="visually-hidden">{status.spoken}</span>}
+        </span>
         <button type="button" className="button is-small" onClick={savePng}>
           Save PNG
         </button>
