@@ -136,7 +136,8 @@ export function App() {
         <span className="topbar-version">{info ? `v${info.version}` : ''}</span>
       </header>
       <StageRail current={stage} onChoose={setStage} />
-      <main id="workspace" tabIndex={-1} className={stage === 'records' ? 'workspace is-records' : 'workspace'} aria-live="polite">
+      {/* The stage itself is not a live region: only its status lines (role status) and problems (role alert) are announced. */}
+      <main id="workspace" tabIndex={-1} className={stage === 'records' ? 'workspace is-records' : 'workspace'}>
         {controls.offer && <RecoveryBanner offer={controls.offer} onRestore={() => void controls.restoreRecovery()} onDiscard={() => void controls.discardRecovery()} />}
         {controls.problem && (
           <div className="problem" role="alert" data-testid="problem">
@@ -155,7 +156,11 @@ export function App() {
         )}
         {stage === 'programme' && (
           <>
-            {load.state === 'loading' && <p className="status">Reading the programme…</p>}
+            {load.state === 'loading' && (
+              <p className="status" role="status">
+                Reading the programme…
+              </p>
+            )}
             {load.state === 'failed' && (
               <div className="problem" role="alert">
                 <strong>The programme could not be opened.</strong> {load.message}

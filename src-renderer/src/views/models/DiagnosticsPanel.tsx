@@ -94,7 +94,7 @@ export function DiagnosticsPanel({ species, models, focus, siteColumn, seasonCol
         Without a mouse: Tab to a chart with points, choose a point with the arrow keys and press Enter to see its records on the Records stage; the improbable totals below have their own button.
       </p>
       {shown && <OutlierControls species={species} model={shown.label} dataKey={shown.dataKey} outcome={shown.outcome} table={shown.table} siteColumn={siteColumn} seasonColumn={seasonColumn} />}
-      {(state.state === 'working' || (state.state === 'ready' && !painted)) && <p className="status">Drawing the diagnostic charts…</p>}
+      {(state.state === 'working' || (state.state === 'ready' && !painted)) && <p className="status" role="status">Drawing the diagnostic charts…</p>}
       {state.state === 'failed' && (
         <p className="problem" role="alert">
           The diagnostic charts could not be drawn: {state.message}
