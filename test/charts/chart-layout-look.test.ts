@@ -11,10 +11,10 @@
  * Data: MASS's quine fits (test/diagnostics/quine-reference.ts) and seeded
  * invented sites; the model labels are invented, as long as the app writes them.
  */
-import { existsSync, mkdirSync } from 'node:fs';
+import { mkdirSync } from 'node:fs';
 import { join, resolve } from 'node:path';
-import { chromium, type Browser } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { browserPath, chromiumForFile } from '../report/chromium';
+import { describe, expect, it } from 'vitest';
 import { influenceChart, meanVarianceChart, residualsVsFittedChart, zerosChart, type ChartOption } from '@shared/charts';
 import { chartLayout, USUAL_GRID_TOP } from '@shared/charts/chart-layout';
 import { meanVarianceBySite, quantileResiduals, siteInfluenceOneStep, zeroCounts } from '@shared/diagnostics';
@@ -25,15 +25,8 @@ import { quineFit } from '../diagnostics/quine-reference';
 import { simulateSites } from '../diagnostics/simulated-sites';
 import { renderSvg } from './render-svg';
 
-const browserPath = [process.env['TALLYWISE_CHROMIUM'], '/usr/bin/chromium', '/usr/bin/chromium-browser'].find((p): p is string => !!p && existsSync(p));
 const outDir = resolve(__dirname, '../../test-output/charts');
-let browser: Browser;
-
-beforeAll(async () => {
-  if (!browserPath) return;
-  browser = await chromium.launch({ executablePath: browserPath, headless: true, args: ['--headless', '--no-sandbox', '--disable-gpu', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'] });
-}, 60_000);
-afterAll(async () => browser?.close());
+const browser = chromiumForFile();
 
 
 
@@ -47,7 +40,7 @@ interface Box {
 
 /** Every text of the SVG with the box Chromium draws it in. */
 async function textBoxes(svg: string, width: number, height: number, png: string): Promise<Box[]> {
-  const page = await browser.newPage({ viewport: { width, height } });
+  const page = await browser().newPage({ viewport: { width, height } });
   try {
     // Set in DejaVu Sans, as the PDF report sets its charts (src-main/report/pdf.ts), the widest of the usual fonts.
     await page.setContent(`<!doctype html><html><head><style>body { margin: 0 } svg text { font-family: "DejaVu Sans" !important }</style></head><body>${svg}</body></html>`);

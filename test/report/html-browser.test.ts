@@ -3,25 +3,18 @@
  * playwright-core, as the browser tests do): it loads with no console error
  * and no request, a site named as markup shows as text and no dialog opens.
  */
-import { existsSync, mkdirSync, writeFileSync } from 'node:fs';
+import { mkdirSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { pathToFileURL } from 'node:url';
-import { chromium, type Browser } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { browserPath, chromiumForFile } from './chromium';
+import { describe, expect, it } from 'vitest';
 import { renderHtml } from '@shared/report/html';
 import { renderDocumentCharts } from '../../src-main/report/svg';
 import { demoReport } from './demo-report';
 import { MARKUP } from './ships-report';
 
-const browserPath = [process.env['TALLYWISE_CHROMIUM'], '/usr/bin/chromium', '/usr/bin/chromium-browser'].find((p): p is string => !!p && existsSync(p));
 const outDir = resolve(__dirname, '../../test-output/report');
-let browser: Browser;
-
-beforeAll(async () => {
-  if (!browserPath) return;
-  browser = await chromium.launch({ executablePath: browserPath, headless: true, args: ['--headless', '--no-sandbox', '--disable-gpu', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'] });
-}, 60_000);
-afterAll(async () => browser?.close());
+const browser = chromiumForFile();
 
 describe.skipIf(!browserPath)('the HTML report in Chromium', () => {
   it('loads with no console error, no request and no dialog; the site named as markup is text', async () => {
@@ -29,7 +22,7 @@ describe.skipIf(!browserPath)('the HTML report in Chromium', () => {
     mkdirSync(outDir, { recursive: true });
     const file = join(outDir, 'demo-report-browser.html');
     writeFileSync(file, renderHtml(doc, renderDocumentCharts(doc)));
-    const page = await browser.newPage({ viewport: { width: 1100, height: 900 } });
+    const page = await browser().newPage({ viewport: { width: 1100, height: 900 } });
     const problems: string[] = [];
     const requests: string[] = [];
     let dialogs = 0;
