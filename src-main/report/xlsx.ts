@@ -25,7 +25,9 @@ function addTable(wb: ExcelJS.Workbook, sheet: SheetTable, taken: Set<string>): 
     const col = ws.getColumn(j + 1);
     const fmt = spreadsheetFormat(c.format);
     if (fmt) col.numFmt = fmt;
-    const longest = Math.max(c.header.length, ...t.rows.map((r) => (typeof r[j] === 'string' ? (r[j] as string).length : 10)));
+    // A loop, not Math.max(...rows): a long table would overflow the argument list.
+    let longest = c.header.length;
+    for (const r of t.rows) longest = Math.max(longest, typeof r[j] === 'string' ? (r[j] as string).length : 10);
     col.width = Math.min(60, Math.max(8, longest + 2));
   });
   header.numFmt = '@';
@@ -36,12 +38,17 @@ function addTable(wb: ExcelJS.Workbook, sheet: SheetTable, taken: Set<string>): 
 }
 
 export async function reportWorkbook(doc: ReportDocument): Promise<Buffer> {
+  return tablesWorkbook(doc.title, doc.createdAt, doc.sheets);
+}
+
+/** Tables as a workbook, one sheet each (the report's sheets, the cleaned-data export). */
+export async function tablesWorkbook(title: string, createdAt: string, sheets: readonly SheetTable[]): Promise<Buffer> {
   const wb = new ExcelJS.Workbook();
   wb.creator = 'Tallywise';
-  wb.created = new Date(doc.createdAt);
+  wb.created = new Date(createdAt);
   wb.modified = wb.created;
-  wb.title = doc.title;
+  wb.title = title;
   const taken = new Set<string>();
-  for (const s of doc.sheets) addTable(wb, s, taken);
+  for (const s of sheets) addTable(wb, s, taken);
   return Buffer.from(await wb.xlsx.writeBuffer());
 }
