@@ -1,6 +1,7 @@
 import type { CliCommand } from '../command';
 import { check } from './check';
 import { demo } from './demo';
+import { exportData } from './export';
 import { fit } from './fit';
 import { merge } from './merge';
 import { power } from './power';
@@ -8,4 +9,4 @@ import { report } from './report';
 import { trend } from './trend';
 
 /** Every command, in the order `tallywise help` lists them. */
-export const commands: readonly CliCommand[] = [check, fit, trend, power, report, merge, demo];
+export const commands: readonly CliCommand[] = [check, fit, trend, power, report, exportData, merge, demo];
