@@ -8,6 +8,7 @@ import { RunningJobs } from './running-jobs';
 import { ProjectSession } from './project-session';
 import { writeReportFiles } from '../report/write-report';
 import { fileFingerprint } from '../report/project-report';
+import { writeCleanedExport } from '../export/write-export';
 
 /** All host calls, as plain async functions over the environment's ports. */
 export function createHostServices(env: HostEnvironment): HostServices {
@@ -47,5 +48,9 @@ export function createHostServices(env: HostEnvironment): HostServices {
     'project:sheet-cells': async ({ sourceId, sheet }) => ({ grid: session.sheetCells(sourceId, sheet) }),
     'project:source-sheets': async ({ sourceId }) => ({ sheets: session.sourceSheets(sourceId) }),
     'report:write': async ({ document, folder, stem }) => ({ ...(await writeReportFiles(document, folder, stem)) }),
+    'export:write': async ({ document, path, table }) => {
+      const w = await writeCleanedExport(document, path, table);
+      return { ...w, sheets: [...w.sheets] };
+    },
   };
 }

@@ -25,6 +25,7 @@ export const channelNames = [
   'project:sheet-cells',
   'project:source-sheets',
   'report:write',
+  'export:write',
 ] as const;
 export type ChannelName = (typeof channelNames)[number];
 

@@ -5,6 +5,7 @@ import { importedSourceSchema } from '../project/imported-source';
 import { sheetGridSchema } from '../project/sheet-grid';
 import { effortUnits } from '../import/units';
 import type { ReportDocument } from '../report/model';
+import { exportTableKeys, type CleanedDataExport } from '../export/export-model';
 
 export { bridgeGlobal, commandChannel, hostCommands, importCancelledName, progressChannel, type HostCommand } from './channels';
 
@@ -214,6 +215,18 @@ const reportDocumentSchema = z.custom<ReportDocument>(
 );
 const reportStem = z.string().regex(/^[^/\\:*?"<>|\u0000-\u001f]{1,120}$/, 'a file name without a folder or any of / \\ : * ? " < > |');
 
+/** The cleaned-data export as it crosses the bridge: its outline is checked here; the writer blanks any cell that is not finite. */
+const cleanedExportSchema = z.custom<CleanedDataExport>(
+  (v) => {
+    const d = v as Partial<Record<keyof CleanedDataExport, unknown>> | null;
+    return (
+      !!d && typeof d.title === 'string' && typeof d.createdAt === 'string' && Array.isArray(d.sheets) &&
+      d.sheets.every((s) => !!s && typeof s.name === 'string' && (exportTableKeys as readonly unknown[]).includes(s.key) && Array.isArray(s.table?.columns) && Array.isArray(s.table?.rows))
+    );
+  },
+  { message: 'an export with a title, a date and its tables (records, analysis, changes, about) is needed' },
+);
+
 /** Channel name → argument schema and result type. */
 export const hostContract = {
   'app:info': { input: empty, output: appInfoSchema },
@@ -282,6 +295,11 @@ export const hostContract = {
   'report:write': {
     input: z.object({ document: reportDocumentSchema, folder: filePath, stem: reportStem }).strict(),
     output: z.object({ pdf: z.string(), html: z.string(), xlsx: z.string() }),
+  },
+  /** Writes the cleaned-data export to `path`: .xlsx every table, .csv one (`table`, default the analysis table). */
+  'export:write': {
+    input: z.object({ document: cleanedExportSchema, path: filePath, table: z.enum(exportTableKeys).optional() }).strict(),
+    output: z.object({ path: z.string(), format: z.enum(['xlsx', 'csv']), sheets: z.array(z.string()), rows: z.number() }),
   },
 } as const satisfies Record<ChannelName, { input: z.ZodType; output: z.ZodType }>;
 

@@ -20,6 +20,7 @@ import { readEdit } from './edit-values';
 import { covariateOfField } from '@shared/import/visit-covariates';
 import type { ProjectControls } from './use-project';
 import { useSiteListAction } from './site-list/use-site-list-action';
+import { useCleanedExport } from './export/use-cleaned-export';
 
 const fmt = new Intl.NumberFormat('en-GB');
 const visitFields = new Set(['site', 'date', 'effort']);
@@ -63,6 +64,7 @@ export function RecordsView({ controls }: { controls: ProjectControls }) {
   const because = reason.trim() ? { reason: reason.trim() } : {};
   const [sideRef, sideHeight] = useElementHeight<HTMLDivElement>(500);
   const siteList = useSiteListAction(controls, cleaned?.records ?? noRecords);
+  const cleanedExport = useCleanedExport(project);
 
   useEffect(() => {
     const onKey = (e: KeyboardEvent) => {
@@ -185,6 +187,7 @@ export function RecordsView({ controls }: { controls: ProjectControls }) {
             Import another workbook…
           </button>
           {siteList.button}
+          {cleanedExport.button}
         </div>
       </header>
       <div className="toolbar" role="toolbar" aria-label="Filters and actions">
@@ -259,6 +262,7 @@ export function RecordsView({ controls }: { controls: ProjectControls }) {
         </button>
       </div>
       {siteList.banner}
+      {cleanedExport.banner}
       <LinkedRecordsNote link={filter.flag === 'linked' ? filter.link : undefined} outliers={outliers} showingOutliers={filter.flag === 'model-outliers'} onClear={() => setFilter(noFilter)} />
       {note && (
         <div className="problem" role="alert">
