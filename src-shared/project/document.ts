@@ -27,6 +27,7 @@ export function createProjectDocument(programmeName: string, now: Date = new Dat
     models: [],
     fitCache: [],
     report: { outputFolder: null, species: [] },
+    reportHistory: [],
     seeds: {},
   };
 }

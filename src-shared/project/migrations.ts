@@ -3,6 +3,7 @@ import { ProjectDocumentError } from './document';
 import { CURRENT_FORMAT_VERSION } from './schema';
 import { v0ToV1 } from './migrations/v0-to-v1';
 import { v1ToV2 } from './migrations/v1-to-v2';
+import { v2ToV3 } from './migrations/v2-to-v3';
 
 /**
  * Migrations: an ordered list, each turning a document of version k into
@@ -22,7 +23,7 @@ export interface Migration {
   upgrade(doc: unknown): unknown;
 }
 
-export const migrations: readonly Migration[] = [v0ToV1, v1ToV2];
+export const migrations: readonly Migration[] = [v0ToV1, v1ToV2, v2ToV3];
 
 /** The version a document body says it has: `formatVersion`, or `version` in the first shape. */
 export function versionOf(body: unknown): number | undefined {

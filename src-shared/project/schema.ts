@@ -4,6 +4,7 @@ import { editLogSchema } from '../cleaning/edit-entry';
 import { fieldCodeRuleSchema } from '../import/field-codes';
 import { importedSourceSchema } from './imported-source';
 import { siteSheetLinkSchema } from './site-sheet-link';
+import { reportHistorySchema } from './report-history';
 
 /**
  * The project document: everything a project file holds. Results are not
@@ -13,7 +14,7 @@ import { siteSheetLinkSchema } from './site-sheet-link';
  * `formatVersion` is an integer raised by one for every change of shape;
  * migrations.ts turns each older version into the next.
  */
-export const CURRENT_FORMAT_VERSION = 2;
+export const CURRENT_FORMAT_VERSION = 3;
 
 const isoTime = z.iso.datetime({ offset: true });
 
@@ -98,6 +99,8 @@ export const projectDocumentSchema = z.object({
   models: projectModelsSchema,
   fitCache: z.array(fitCacheEntrySchema),
   report: reportSettingsSchema,
+  /** The reports made from the project, oldest first (report-history.ts): what was written and the numbers it gave. */
+  reportHistory: reportHistorySchema,
   /** Random seeds by purpose (bootstrap, simulation ...), so reruns give the same numbers. */
   seeds: z.record(z.string(), z.number().int()),
 });

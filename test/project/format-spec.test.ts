@@ -31,7 +31,7 @@ describe('docs/project-format.md describes the file as written', () => {
     const doc = sampleProject();
     await saveProject(file, doc);
     const { header, body } = readByTheDocument(readFileSync(file));
-    expect(header['format-version']).toBe('2');
+    expect(header['format-version']).toBe('3');
     expect(header['body-encoding']).toBe('gzip-json-utf8');
     expect(body).toEqual(doc);
     // gzip magic bytes 1f 8b (RFC 1952)

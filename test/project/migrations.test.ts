@@ -4,6 +4,8 @@ import { describe, expect, it } from 'vitest';
 import { migrateToCurrent, versionOf, type Migration } from '@shared/project/migrations';
 import { parseProjectDocument, ProjectDocumentError } from '@shared/project/document';
 import { CURRENT_FORMAT_VERSION } from '@shared/project/schema';
+import { v1ToV2 } from '@shared/project/migrations/v1-to-v2';
+import { v2ToV3 } from '@shared/project/migrations/v2-to-v3';
 import { cellAt } from '@shared/project/sheet-grid';
 
 // Fixture: test/project/fixtures/project-v0.json, a hand-written body in the
@@ -79,10 +81,10 @@ describe('migration v1 -> v2', () => {
   const { doc, fromVersion, steps } = migrateToCurrent(v1);
   const project = parseProjectDocument(doc);
 
-  it('runs one step and gives a valid current document with the other members unchanged', () => {
+  it('runs the steps from 1 and gives a valid current document with the other members unchanged', () => {
     expect(fromVersion).toBe(1);
-    expect(steps).toEqual(['1 -> 2: models per species with the offset-row choice, a link to a site-attributes sheet']);
-    expect(project.formatVersion).toBe(2);
+    expect(steps).toEqual(['1 -> 2: models per species with the offset-row choice, a link to a site-attributes sheet', '2 -> 3: a history of the reports made (empty for older files)']);
+    expect(project.formatVersion).toBe(3);
     expect(project.sites).toBeNull();
     expect(project.sources).toEqual(v1.sources);
     expect(project.report).toEqual(v1.report);
@@ -116,6 +118,37 @@ describe('migration v1 -> v2', () => {
 
   it('reports a malformed version-1 model by its path', () => {
     expect(() => migrateToCurrent({ ...v1, models: [{ id: 'm1', chosen: 'yes' }] })).toThrow(/format version 1 .*models\.0\./);
+  });
+});
+
+// The version-2 body is the v1 fixture after its own step (checked above);
+// expected values follow from src-shared/project/migrations/v2-to-v3.ts.
+describe('migration v2 -> v3', () => {
+  const v2 = v1ToV2.upgrade(v1) as Record<string, unknown>;
+
+  it('adds an empty report history and changes nothing else', () => {
+    const { doc, fromVersion, steps } = migrateToCurrent(v2);
+    expect(fromVersion).toBe(2);
+    expect(steps).toEqual(['2 -> 3: a history of the reports made (empty for older files)']);
+    const { formatVersion, reportHistory, ...rest } = doc as Record<string, unknown>;
+    expect(formatVersion).toBe(3);
+    expect(reportHistory).toEqual([]);
+    const { formatVersion: _v, ...before } = v2;
+    expect(rest).toEqual(before);
+    expect(parseProjectDocument(doc).reportHistory).toEqual([]);
+  });
+
+  it('the step reads only version-2 bodies', () => {
+    expect(() => v2ToV3.upgrade(v1)).toThrow();
+    expect(() => v2ToV3.upgrade(null)).toThrow();
+  });
+
+  it('a current body with a malformed history entry is refused, naming the place', () => {
+    const current = parseProjectDocument(migrateToCurrent(v2).doc);
+    const entry = { madeAt: '2026-01-01T00:00:00Z', software: { name: 'Tallywise', version: '0.1.0' }, files: [{ name: 'r.pdf', sha256: 'xyz' }], dataKey: null, species: [], composite: null };
+    expect(() => parseProjectDocument({ ...current, reportHistory: [entry] })).toThrow(/reportHistory\.0\.files\.0\.sha256: a SHA-256/);
+    const good = { ...entry, files: [{ name: 'r.pdf', sha256: 'ab'.repeat(32) }] };
+    expect(parseProjectDocument({ ...current, reportHistory: [good] }).reportHistory).toEqual([good]);
   });
 });
 

@@ -160,7 +160,7 @@ describe('loadProject refuses bad files and changes nothing on disk', () => {
     const bytes = Buffer.from(encodeContainer({ formatVersion: 99 }, 99));
     bytes[bytes.length - 5] ^= 0xff;
     writeFileSync(file, bytes);
-    await expectRefused(file, 'newer-version', /saved by a newer Tallywise \(project format 99; this version reads up to 2\)\. Update Tallywise/);
+    await expectRefused(file, 'newer-version', /saved by a newer Tallywise \(project format 99; this version reads up to 3\)\. Update Tallywise/);
   });
 
   it('a missing file or a folder: unreadable', async () => {
