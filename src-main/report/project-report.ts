@@ -64,6 +64,8 @@ export async function projectPlan(doc: ProjectDocument, options: ProjectPlanOpti
     command: options.command,
     replicates: options.replicates,
     seed: options.seed ?? doc.seeds[REPORT_SEED_KEY],
+    dataKey: analysis.dataKey,
+    previous: doc.reportHistory.at(-1) ?? null,
   });
   return { plan, siteProblems: analysis.siteProblems };
 }

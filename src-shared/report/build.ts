@@ -39,6 +39,8 @@ import { compositeSection } from './composite-section';
 import { groupSection, seasonSpan, type GroupTrend } from './group-section';
 import type { Block, Cell, ReportDocument, Section, SheetTable } from './model';
 import { referenceList } from './references';
+import type { SinceLast } from './since-last';
+import { sinceLastSection, sinceLastSheet } from './since-last-section';
 import { changeOverSpan } from './summary-sentence';
 import { coefficientCells, coefficientColumns, indexCells, indexColumns, summaryTable, type SummaryRow } from './tables';
 
@@ -57,6 +59,8 @@ export interface ReportInput {
   readonly cleaning?: EditLog;
   /** The imported and cleaned records behind the log, when at hand: the cleaning part then counts the records each change altered. */
   readonly cleaningRecords?: CleaningRecords;
+  /** This report against the last one in the project's history: the section "Since the last report" after the summary. */
+  readonly sinceLast?: SinceLast;
 }
 
 /** A section id from a group value: letters and digits only, unique within the report. */
@@ -119,6 +123,7 @@ export function buildTrendReport(input: ReportInput): ReportDocument {
   };
   const groupSections = input.groups.map((g, i) => groupSection(g, input.spec, ids[i]));
   const sections: Section[] = [cautionsSection(input.cautions), overview];
+  if (input.sinceLast) sections.push(sinceLastSection(input.sinceLast));
   if (input.cleaning) sections.push({ id: 'cleaning', heading: 'What cleaning changed', blocks: cleaningBlocks(input.cleaning, input.cleaningRecords), continues: true });
   sections.push(...groupSections);
   if (input.composite) sections.push(compositeSection(input.composite, timeName, !input.groupColumn || input.groupColumn === 'species' ? 'species' : `values of "${input.groupColumn}"`));
@@ -134,6 +139,7 @@ export function buildTrendReport(input: ReportInput): ReportDocument {
       table: { kind: 'table', id: 'sheet-coefficients', caption: 'Model coefficients', columns: coefficientColumns(groupHeader), rows: fitted.flatMap((g): Cell[][] => coefficientCells(g.result!.fit, label(g))) },
     },
   ];
+  if (input.sinceLast) sheets.push(sinceLastSheet(input.sinceLast));
   sheets.push(...optionalSheets(input, groupHeader, label));
   if (input.composite) sheets.push({ name: 'Composite', table: { kind: 'table', id: 'sheet-composite', caption: 'Composite index with 95% limits', columns: indexColumns(timeName), rows: indexCells(input.composite.indices) } });
   return {

@@ -25,6 +25,8 @@ export interface PlannedGroup {
   readonly model?: string;
   /** The other models of the group, compared with the chosen one on the same rows. */
   readonly others?: readonly LabelledSpec[];
+  /** Rows whose offsets cannot be logged were left out of `table` (the report history records it with the model). */
+  readonly dropBadOffsetRows?: boolean;
 }
 
 export interface GroupStepResult {

@@ -9,6 +9,7 @@ import { findColumn, levelsOf, selectRows, sortLevels, type DataTable } from '..
 import type { EditLog } from '../cleaning/edit-entry';
 import type { LoadedSource } from '../host/contract';
 import type { ModelSpec } from '../model/spec';
+import type { ReportHistoryEntry } from '../project/report-history';
 import type { Provenance } from './appendix';
 import { cleaningRecordsOf, type CleaningRecords } from './cleaning-summary';
 import type { PlannedGroup, ProgrammePlan } from './programme-report';
@@ -75,7 +76,7 @@ export function programmeGroups(table: DataTable, models: readonly ChosenModel[]
     const rows = rowsFor(table, m);
     all.push(...rows);
     const others = candidates.filter((c) => c.species === m.species && !sameModel(c, m)).map((c) => ({ label: c.name, spec: c.spec }));
-    return { group: m.species, ...(labels[m.species] ? { label: labels[m.species] } : {}), table: selectRows(table, rows), spec: m.spec, model: m.name, others };
+    return { group: m.species, ...(labels[m.species] ? { label: labels[m.species] } : {}), table: selectRows(table, rows), spec: m.spec, model: m.name, others, dropBadOffsetRows: m.dropBadOffsetRows };
   });
   return { groups, compositeTable: selectRows(table, all.sort((a, b) => a - b)) };
 }
@@ -135,6 +136,10 @@ export interface ProjectReportInput {
   readonly replicates?: number;
   readonly seed?: number;
   readonly labels?: Readonly<Record<string, string>>;
+  /** The data key of the cleaned records (CleanedAnalysis.dataKey), kept in the report history. */
+  readonly dataKey?: string;
+  /** The last entry of the project's report history: the report says what changed since. */
+  readonly previous?: ReportHistoryEntry | null;
 }
 
 const HOW_TO_CHOOSE = 'In the app, open the project, fit a model for it on the Models stage, pick it in the "For the report" column and save the project.';
@@ -186,6 +191,8 @@ export function projectReportPlan(input: ProjectReportInput): ProgrammePlan {
     replicates: input.replicates,
     seed: input.seed,
     cleaning: input.cleaning,
+    ...(input.dataKey !== undefined ? { dataKey: input.dataKey } : {}),
+    ...(input.previous ? { previous: input.previous } : {}),
     ...(input.cleaningRecords ? { cleaningRecords: cleaningRecordsOf(input.cleaningRecords) } : {}),
   };
 }

@@ -12,6 +12,11 @@
  * A `runner` over worker threads (poolRunner of the command line's pool)
  * runs the groups' steps and the composite's bootstrap replicates there,
  * all queued at once, so both cores work from the start.
+ *
+ * runProgrammeReport also gives the run's record for the project's report
+ * history (history-record.ts) and, when the plan has the last entry
+ * (`previous`), how this run compares with it (since-last.ts; the report
+ * then has the section "Since the last report").
  */
 import type { EditLog } from '../cleaning/edit-entry';
 import type { DataTable } from '../data/table';
@@ -23,6 +28,9 @@ import { buildTrendReport, type ReportInput } from './build';
 import type { GroupTrend } from './group-section';
 import { groupStep, type PlannedGroup } from './group-step';
 import type { ReportDocument } from './model';
+import type { ReportHistoryEntry, ReportRecord } from '../project/report-history';
+import { reportRecord } from './history-record';
+import { compareWithLast, type SinceLast } from './since-last';
 
 export const DEFAULT_COMPOSITE_REPLICATES = 199;
 
@@ -50,6 +58,10 @@ export interface ProgrammePlan {
   readonly cleaning?: EditLog;
   /** The imported and cleaned records behind the log, when at hand (the cleaning part then counts records). */
   readonly cleaningRecords?: ReportInput['cleaningRecords'];
+  /** The data key of the cleaned records behind the tables (kept in the report history; null or absent: not known). */
+  readonly dataKey?: string | null;
+  /** The last entry of the project's report history: the report compares itself with it. */
+  readonly previous?: ReportHistoryEntry;
 }
 
 export interface ProgrammeProgress {
@@ -92,8 +104,18 @@ export async function buildProgrammeReport(plan: ProgrammePlan, options: Program
   return (await runProgrammeReport(plan, options)).document;
 }
 
-/** The report and the groups whose trend could not be fitted or did not converge (their names). */
-export async function runProgrammeReport(plan: ProgrammePlan, options: ProgrammeOptions = {}): Promise<{ document: ReportDocument; unsound: string[] }> {
+export interface ProgrammeRun {
+  readonly document: ReportDocument;
+  /** The groups whose trend could not be fitted or did not converge (their names). */
+  readonly unsound: string[];
+  /** What the project's report history keeps of this run (its files are added once written). */
+  readonly record: ReportRecord;
+  /** This run against the plan's `previous` report; null without one. */
+  readonly sinceLast: SinceLast | null;
+}
+
+/** The report, the groups that are unsound, the run's history record and how it compares with the last report. */
+export async function runProgrammeReport(plan: ProgrammePlan, options: ProgrammeOptions = {}): Promise<ProgrammeRun> {
   if (plan.groups.length === 0) throw new RangeError('A report needs at least one species (group) with a chosen model.');
   const { signal } = options;
   const notify = options.onProgress ?? (() => {});
@@ -136,6 +158,8 @@ export async function runProgrammeReport(plan: ProgrammePlan, options: Programme
   const compositeIndex = made?.composite;
   checkCancel(signal);
   notify({ group: '', done: total, total, fraction: 1, stage: 'assembling the report' });
+  const record = reportRecord({ madeAt: plan.provenance.createdAt, software: plan.provenance.software, dataKey: plan.dataKey ?? null, planned: plan.groups, groups, composite: compositeIndex });
+  const sinceLast = plan.previous ? compareWithLast(plan.previous, record) : null;
   const provenance: Provenance = compositeIndex ? { ...plan.provenance, seeds: [...plan.provenance.seeds, { what: 'the composite bootstrap', value: compositeIndex.seed }] } : plan.provenance;
   const document = buildTrendReport({
     title: plan.title,
@@ -148,8 +172,9 @@ export async function runProgrammeReport(plan: ProgrammePlan, options: Programme
     provenance,
     cleaning: plan.cleaning,
     cleaningRecords: plan.cleaningRecords,
+    ...(sinceLast ? { sinceLast } : {}),
   });
-  return { document, unsound: groups.filter((g) => !g.result?.fit.converged).map((g) => g.label ?? g.group) };
+  return { record, sinceLast, document, unsound: groups.filter((g) => !g.result?.fit.converged).map((g) => g.label ?? g.group) };
 }
 
 interface StartedComposite {
