@@ -20,6 +20,7 @@ import { UsageError, type CliCommand, type CliIO } from '../command';
 import { readSpecFile } from '../spec-file';
 import { createFitPool, defaultJobs } from '../worker/fit-pool';
 import { interruptible } from '../interrupt';
+import { verifyOutcome } from '../report-verify';
 
 export const report: CliCommand = {
   name: 'report',
@@ -40,18 +41,23 @@ export const report: CliCommand = {
     '  --seed S      seed of the composite bootstrap (default: the project\'s, else 1)',
     '  --jobs N      worker threads for the bootstrap refits (default: one per core; 0 = this process)',
     '  --title TEXT  the report title',
+    '  --verify      with --project: set the report against the last one in the project\'s history and say whether it',
+    '                reproduced it ("reproduced exactly") or which numbers differ; the project file is never written',
     '',
-    '  Prints the paths of the three files written, one a line; progress goes to stderr.',
-    '  Exit status 1 when a fit did not converge or a species could not be fitted (the report is still written).',
+    '  Prints the paths of the three files written, one a line (with --verify, then the outcome); progress goes to stderr.',
+    '  A project that keeps earlier reports gets the section "Since the last report".',
+    '  Exit status 1 when a fit did not converge or a species could not be fitted (the report is still written),',
+    '  or, with --verify, when the cleaned records and the models are the same as last time but the numbers are not.',
   ].join('\n'),
   async run(argv, io) {
-    const args = parseArgs(argv, { values: ['data', 'spec', 'out', 'by', 'sheet', 'replicates', 'seed', 'jobs', 'title', 'project', 'species'], flags: ['demo'] });
+    const args = parseArgs(argv, { values: ['data', 'spec', 'out', 'by', 'sheet', 'replicates', 'seed', 'jobs', 'title', 'project', 'species'], flags: ['demo', 'verify'] });
     const out = resolve(requireOption(args, 'out', 'the folder to write the report into'));
     const modes = [args.options.has('project') && '--project', args.flags.has('demo') && '--demo', args.options.has('data') && '--data'].filter(Boolean);
     if (modes.length !== 1) throw new UsageError(modes.length ? `${modes.join(' and ')} cannot go together: leave out ${modes.slice(1).join(' and ')}.` : 'Say what to report: --project FILE, --demo, or --data FILE --spec FILE.');
     if (!args.options.has('data') && (args.options.has('spec') || args.options.has('by') || args.options.has('sheet'))) {
       throw new UsageError(`${modes[0]} brings its own models and grouping (by species); leave out --spec, --by and --sheet (they go with --data).`);
     }
+    if (args.flags.has('verify') && !args.options.has('project')) throw new UsageError('--verify goes with --project FILE: it sets the report against the last one kept in the project file.');
     if (args.options.has('data') && args.options.has('species')) throw new UsageError('--species goes with --project or --demo; with --data, use --by COLUMN.');
     const common = {
       replicates: wholeNumber(args, 'replicates', 20),
@@ -62,7 +68,7 @@ export const report: CliCommand = {
     };
     const input = args.options.has('data') ? await fileInput(args, common) : await projectInput(args, common, io);
     const plan: ProgrammePlan = args.options.has('title') ? { ...input.plan, title: args.options.get('title')! } : input.plan;
-    return runReport(plan, out, input.stem, wholeNumber(args, 'jobs', 0) ?? defaultJobs(), io);
+    return runReport(plan, out, input.stem, wholeNumber(args, 'jobs', 0) ?? defaultJobs(), io, args.flags.has('verify'));
   },
 };
 
@@ -73,17 +79,19 @@ interface ReportInput {
   stem: string;
 }
 
-async function runReport(plan: ProgrammePlan, out: string, stem: string, jobs: number, io: CliIO): Promise<number> {
+async function runReport(plan: ProgrammePlan, out: string, stem: string, jobs: number, io: CliIO, verify = false): Promise<number> {
   const fitPool = plan.compositeTable ? createFitPool(jobs) : null;
   try {
     return await interruptible(io, () => 'Stopped: the report was interrupted; nothing was written.', async (signal) => {
-      const { document, unsound } = await runProgrammeReport(plan, { signal, onProgress: progressLines(plan, io), runner: fitPool ? poolRunner(fitPool.pool, signal) : undefined });
+      const { document, unsound, sinceLast } = await runProgrammeReport(plan, { signal, onProgress: progressLines(plan, io), runner: fitPool ? poolRunner(fitPool.pool, signal) : undefined });
       const written = await writeReportFiles(document, out, stem, (stage) => io.err(`Report: ${stage} ...`));
       io.out(written.pdf);
       io.out(written.html);
       io.out(written.xlsx);
       if (unsound.length) io.err(`Look at the report's warnings for ${unsound.join(', ')}: the fit did not converge or could not be made.`);
-      return unsound.length ? 1 : 0;
+      const verified = verify ? verifyOutcome(sinceLast) : null;
+      for (const line of verified?.lines ?? []) io.out(line);
+      return unsound.length || verified?.failed ? 1 : 0;
     });
   } finally {
     fitPool?.pool.dispose();
