@@ -33,7 +33,7 @@ export function App() {
   const models = useModels(controls.setModels);
   // Saved models are fitted again when a project opens, whatever stage is shown.
   useRefitOnOpen(controls.project, models);
-  const reportRun = useReportRun();
+  const reportRun = useReportRun(controls.addReportEntry);
   const { project } = controls;
   const latest = useRef(controls);
   latest.current = controls;

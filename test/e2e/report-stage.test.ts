@@ -14,7 +14,9 @@ import { closeBrowser, openApp } from './harness';
 // chosen for two demo species on the Models stage, the project saved, then
 // the report made from them, cancelled once (nothing written, the screen as
 // it was), made again, and its files opened. The PDF's text is read back
-// with pdftotext.
+// with pdftotext. The report goes into the project's report history (the
+// project then has unsaved changes); saved and made once more, the report
+// says it reproduced the last one exactly.
 
 afterAll(closeBrowser);
 
@@ -41,6 +43,8 @@ async function fitAndChoose(page: Page): Promise<void> {
 
 describe('the Report stage', () => {
   it('makes the report of the chosen models with progress and cancel, then opens it', async () => {
+    let firstPdfSha = '';
+    let written: string[] = [];
     const opened: string[] = [];
     const app = await openApp({ width: 1366, height: 768, env: { shell: { reveal: async (p) => (opened.push(`reveal ${p}`), true), open: async (p) => (opened.push(`open ${p}`), true) } } });
     const { page } = app;
@@ -87,6 +91,10 @@ describe('the Report stage', () => {
       await page.getByTestId('report-progress-text').filter({ hasText: /composite/ }).waitFor({ timeout: 120_000 });
       await page.getByTestId('report-written').waitFor({ timeout: 240_000 });
       await app.screenshot('report-done');
+      // The report is kept in the project's history: unsaved changes, and the stage shows the last report.
+      await page.getByTestId('unsaved-mark').waitFor();
+      await expect.poll(() => page.getByTestId('report-last').textContent()).toMatch(/^Report history: last made \d{4}-\d\d-\d\d \d\d:\d\d UTC with Tallywise \S+, files \S+-trend-report \.pdf, \.html and \.xlsx\./);
+      await expect.poll(() => page.getByTestId('report-note').textContent()).toMatch(/added to the project's report history/);
       const files = readdirSync(folder).filter((f) => !f.startsWith('ponds.tallywise')).sort();
       expect(files.map((f) => f.slice(f.lastIndexOf('.')))).toEqual(['.html', '.pdf', '.xlsx']);
       const pdf = join(folder, files[1]);
@@ -103,12 +111,28 @@ describe('the Report stage', () => {
       await page.getByTestId('open-folder').click();
       await expect.poll(() => opened).toEqual([`open ${pdf}`, `reveal ${pdf}`]);
       expect(existsSync(pdf)).toBe(true);
+      written = files;
+      firstPdfSha = createHash('sha256').update(readFileSync(pdf)).digest('hex');
+
+      // Saved (the history goes into the file) and made again from the same project: reproduced exactly.
+      await app.command('save-project');
+      await expect.poll(() => page.getByTestId('unsaved-mark').count(), { timeout: 30_000 }).toBe(0);
+      await page.getByTestId('make-report').click();
+      await expect.poll(() => page.getByTestId('report-note').textContent(), { timeout: 240_000 }).toMatch(/Nothing changed since the last report, and it was reproduced exactly\./);
+      await expect.poll(() => page.getByTestId('report-last').textContent()).toMatch(/\.xlsx \(1 earlier\)\./);
+      await app.screenshot('report-reproduced');
+      if (hasPoppler()) expect(pdfText(pdf).replace(/\s+/g, ' ')).toContain('Since the last report');
       expect(app.consoleErrors).toEqual([]);
     } finally {
       await app.close();
     }
-    // The folder and the species are remembered in the project file.
+    // The folder and the species are remembered in the project file, and the first report in its history.
     const { document } = await loadProject(projectFile);
     expect(document.report.outputFolder).toBe(folder);
+    expect(document.reportHistory).toHaveLength(1);
+    const [entry] = document.reportHistory;
+    expect(entry.species.map((s) => s.species)).toEqual(reported);
+    expect([...entry.files.map((f) => f.name)].sort()).toEqual(written);
+    expect(entry.files[0].sha256).toBe(firstPdfSha);
   }, 600_000);
 });

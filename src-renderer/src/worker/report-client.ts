@@ -1,5 +1,4 @@
-import type { ProgrammePlan, ProgrammeProgress } from '@shared/report/programme-report';
-import type { ReportDocument } from '@shared/report/model';
+import type { ProgrammePlan, ProgrammeProgress, ProgrammeRun } from '@shared/report/programme-report';
 import { WorkerPool } from '@shared/worker/pool';
 import { readProgress, type ReportMethods } from './report-methods';
 import { webWorker } from './web-worker';
@@ -11,7 +10,7 @@ import { webWorker } from './web-worker';
  */
 let pool: WorkerPool<ReportMethods> | null = null;
 
-export function programmeReportInWorker(plan: ProgrammePlan, options: { signal?: AbortSignal; onProgress?: (p: ProgrammeProgress) => void } = {}): Promise<ReportDocument> {
+export function programmeReportInWorker(plan: ProgrammePlan, options: { signal?: AbortSignal; onProgress?: (p: ProgrammeProgress) => void } = {}): Promise<ProgrammeRun> {
   pool ??= new WorkerPool<ReportMethods>(() => webWorker(new Worker(new URL('./report.worker.ts', import.meta.url), { type: 'module', name: 'tallywise-report' })), { size: 1 });
   return pool.run('report', [plan], {
     signal: options.signal,

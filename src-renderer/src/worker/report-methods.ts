@@ -1,6 +1,6 @@
 import type { CallContext } from '@shared/worker/port';
 import type { ReportFitMethods } from '@shared/report/fit-worker-methods';
-import { buildProgrammeReport, type ProgrammePlan, type ProgrammeProgress } from '@shared/report/programme-report';
+import { runProgrammeReport, type ProgrammePlan, type ProgrammeProgress } from '@shared/report/programme-report';
 import { poolRunner, servesReplicates } from '@shared/trend/pool-runner';
 import { defaultPoolSize, WorkerPool } from '@shared/worker/pool';
 import { webWorker } from './web-worker';
@@ -24,14 +24,16 @@ function reportFitPool(): WorkerPool<ReportFitMethods> | null {
 }
 
 /**
- * What the report worker serves: the whole programme's report run. Progress
+ * What the report worker serves: the whole programme's report run (the
+ * document, the run's report-history record and how it compares with the
+ * last report). Progress
  * crosses as the context's (fraction, stage) pair: the overall fraction, and
  * the full progress record as JSON in the stage (see readProgress).
  */
 export const reportMethods = {
   report: ([plan]: readonly [ProgrammePlan], ctx: CallContext) => {
     const pool = reportFitPool();
-    return buildProgrammeReport(plan, {
+    return runProgrammeReport(plan, {
       signal: ctx.signal,
       runner: pool ? poolRunner(pool) : undefined,
       onProgress: (p) => ctx.onProgress(Math.min(1, (p.done + p.fraction) / Math.max(1, p.total)), JSON.stringify(p)),

@@ -146,6 +146,18 @@ export function useProject() {
     },
     [scheduleAutosave],
   );
+  /** A report was made: its entry goes at the end of the project's report history, which marks the project unsaved. */
+  const addReportEntry = useCallback(
+    (entry: WireDocument['reportHistory'][number]) => {
+      const p = current.current;
+      if (!p) return;
+      const next = { ...p, dirty: true, document: { ...p.document, reportHistory: [...p.document.reportHistory, entry] } };
+      current.current = next;
+      setProject(next);
+      scheduleAutosave(next);
+    },
+    [scheduleAutosave],
+  );
   /** The project's link to its site list (doc.sites), or none; a change marks the project unsaved. */
   const setSites = useCallback(
     (sites: WireDocument['sites']) => {
@@ -318,7 +330,7 @@ export function useProject() {
     project, busy, problem, question, rolesQuestion, offer, importJob,
     dismissProblem: () => setProblem(null),
     showProblem: setProblem,
-    edit, undo, redo, revert, setModels, changeReport, setSites,
+    edit, undo, redo, revert, setModels, changeReport, addReportEntry, setSites,
     openDemo, importWorkbook, importPath, answerQuestion, answerRoles, openProject, save, saveAs, restoreRecovery, discardRecovery,
   };
 }

@@ -9,6 +9,7 @@ import { useSiteSheet } from '../models/site-attributes';
 import { fixFor, reportChoices } from './report-choices';
 import { ReportProgress } from './ReportProgress';
 import { ReportWritten } from './ReportWritten';
+import { LastReportLine } from './LastReportLine';
 import type { ReportRunControls } from './use-report-run';
 
 /** The report's settings kept in the project: the output folder and the species, in order. */
@@ -86,6 +87,8 @@ export function ReportView({ controls, models, run, version, onSettings }: Props
         createdAt: new Date().toISOString(),
         command: `Made on the Report stage of the app. The same report from the command line: tallywise report --project ${projectFile ? `"${projectFile.name}"` : 'FILE'} --out DIR --species ${species.join(',')}`,
         seed: project.document.seeds[REPORT_SEED_KEY],
+        dataKey: analysis.dataKey,
+        previous: project.document.reportHistory.at(-1) ?? null,
       });
       await run.make(plan, folder, stem);
     } catch (err) {
@@ -138,6 +141,7 @@ export function ReportView({ controls, models, run, version, onSettings }: Props
               {folder ? 'Change…' : 'Choose folder…'}
             </button>
           </p>
+          <LastReportLine history={project.document.reportHistory} />
           <p className="hint" data-testid="report-files">
             Files: <code>{stem}</code> .pdf, .html and .xlsx; files of those names in the folder are replaced.
           </p>
