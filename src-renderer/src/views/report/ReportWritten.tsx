@@ -1,3 +1,4 @@
+import { madeOn } from '@shared/report/since-last-section';
 import { call } from '../../host';
 import type { WrittenReport } from './use-report-run';
 
@@ -11,7 +12,7 @@ export function ReportWritten({ written, onProblem }: { written: WrittenReport; 
     <div className="report-written" data-testid="report-written">
       <h3>Last report</h3>
       <p className="hint">
-        {written.species.join(', ')}; made {new Date(written.madeAt).toLocaleString()}.
+        {written.species.join(', ')}; made {madeOn(written.madeAt)}.
       </p>
       <ul>
         {[written.pdf, written.html, written.xlsx].map((p) => (
