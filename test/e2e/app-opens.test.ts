@@ -12,9 +12,9 @@ describe('the app opens on the demo programme', () => {
     try {
       const { page } = app;
       await page.getByRole('heading', { level: 1, name: expected.programme }).waitFor();
-      expect(await page.getByTestId('count-sites').textContent()).toBe(String(expected.sites.length));
-      expect(await page.getByTestId('count-seasons').textContent()).toBe(String(expected.seasons.length));
-      expect(await page.getByTestId('count-species').textContent()).toBe(String(expected.species.length));
+      await expect.poll(() => page.getByTestId('count-sites').textContent()).toBe(String(expected.sites.length));
+      await expect.poll(() => page.getByTestId('count-seasons').textContent()).toBe(String(expected.seasons.length));
+      await expect.poll(() => page.getByTestId('count-species').textContent()).toBe(String(expected.species.length));
       for (const s of expected.species) await expect.poll(() => page.getByRole('table', { name: 'Species' }).getByText(s.name, { exact: true }).count()).toBe(1);
       const siteRows = await page.getByRole('table', { name: 'Sites' }).locator('tbody tr').count();
       expect(siteRows).toBe(expected.sites.length);

@@ -82,8 +82,9 @@ describe('model outlier flags', () => {
       await items.first().getByRole('button', { name: 'Show visits' }).focus();
       await page.keyboard.press('Enter');
       await expect.poll(() => page.getByTestId('linked-note').textContent()).toContain(`${toad.label} at ${m![1]}, season ${m![2]} (a model flag)`);
-      const sites = await page.getByTestId('records-grid').locator('.ag-row .ag-cell[col-id="site"]').allTextContents();
-      expect(new Set(sites.map((t) => t.trim()))).toEqual(new Set([m![1]]));
+      // The note can change a frame before the grid's rows do: wait for the rows.
+      const siteCells = page.getByTestId('records-grid').locator('.ag-row .ag-cell[col-id="site"]');
+      await expect.poll(async () => new Set((await siteCells.allTextContents()).map((t) => t.trim()))).toEqual(new Set([m![1]]));
       await app.screenshot('records-model-flags');
       // Flags never leave anything out: every record is still in, none marked left out.
       const total = /^([\d,]+) records/.exec((await page.getByTestId('records-summary').textContent()) ?? '')![1];

@@ -34,8 +34,8 @@ describe('choosing column roles by hand', () => {
       await app.screenshot('records-roles-dialog');
       await submit.click();
       await page.getByTestId('records-summary').filter({ hasText: '6 records from 1 workbook' }).waitFor();
-      expect(await page.getByLabel('Filter by site').locator('option').allTextContents()).toEqual(['All sites (2)', 'North ridge', 'South ridge']);
-      expect(await page.getByLabel('Filter by species').locator('option').allTextContents()).toEqual(['All species (2)', 'Tally A', 'Tally B']);
+      await expect.poll(() => page.getByLabel('Filter by site').locator('option').allTextContents()).toEqual(['All sites (2)', 'North ridge', 'South ridge']);
+      await expect.poll(() => page.getByLabel('Filter by species').locator('option').allTextContents()).toEqual(['All species (2)', 'Tally A', 'Tally B']);
       // Dates typed as text are the rule in a CSV, so they are not flagged one by one.
       await expect.poll(() => page.getByTestId('records-summary').textContent()).toContain('0 findings still open');
       expect(app.consoleErrors).toEqual([]);
