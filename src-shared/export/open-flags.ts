@@ -1,11 +1,12 @@
 /**
- * The import's findings still open on each cleaned record. The rule is the
- * Records stage's (its flags panel): a finding is dealt with for a record
- * once the record is left out, or once the field it is about differs from
- * the import (edited, merged, converted); a whole-visit finding (no field)
- * only by leaving out.
+ * The import's findings still open on each cleaned record, in the Records
+ * stage's chip words ("no effort", "repeated row"), by the stage's own rule
+ * (settledFor): dealt with once the record is left out, or once the field
+ * the finding is about differs from the import (edited, merged, converted);
+ * a whole-visit finding (no field) only by leaving out.
  */
 import type { CleaningRecord } from '../cleaning/record';
+import { flagLabel, settledFor } from '../cleaning/finding-flags';
 import type { LoadedSource } from '../host/contract';
 
 export function openFlagsByRecord(sources: readonly LoadedSource[], raw: readonly CleaningRecord[], cleaned: readonly CleaningRecord[]): Map<string, string[]> {
@@ -16,12 +17,11 @@ export function openFlagsByRecord(sources: readonly LoadedSource[], raw: readonl
     for (const f of s.findings) {
       for (const id of f.recordIds) {
         const c = cleanedById.get(id);
-        if (!c || c.excluded !== undefined) continue;
-        const r = rawById.get(id);
-        if (f.field && r && c.fields[f.field] !== r.fields[f.field]) continue;
+        if (!c || settledFor(f, c, rawById.get(id))) continue;
+        const word = flagLabel(f.code);
         const list = out.get(id);
-        if (!list) out.set(id, [f.code]);
-        else if (!list.includes(f.code)) list.push(f.code);
+        if (!list) out.set(id, [word]);
+        else if (!list.includes(word)) list.push(word);
       }
     }
   }

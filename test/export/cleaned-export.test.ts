@@ -67,6 +67,45 @@ describe('cleaned-data export of the demo', () => {
     expect(typeof row[col(rec, 'Visit')]).toBe('number');
   });
 
+  it('Records: open flags in the Records stage words; a finding dealt with by leaving out is not listed', () => {
+    const rec = sheetOf(d.exported, 'records');
+    const flags = col(rec, 'Open flags');
+    const placeOf = (id: string) => {
+      const s = d.sources.find((x) => id.startsWith(`${x.summary.id}:`))!;
+      const u = recordsOfSource(s);
+      const i = u.raw.findIndex((r) => r.id === id);
+      return rec.table.rows.find((r) => r[col(rec, 'File')] === s.summary.fileName && r[col(rec, 'Row')] === u.row[i] && r[col(rec, 'Count cell')] === u.column[i])!;
+    };
+    const findings = d.sources.flatMap((s) => s.findings);
+    const rawOf = (id: string) => d.sources.flatMap((x) => recordsOfSource(x).raw).find((r) => r.id === id)!;
+    const cleanedOf = (id: string) => d.analysis.cleaned.find((r) => r.id === id)!;
+    // The words the Records stage's chips use for the demo's planted problems (src-shared/cleaning/finding-flags.ts).
+    const words: Record<string, string> = { 'count-lower-bound': 'lower bound', 'count-present-only': 'heard, no count', 'count-not-surveyed': 'not surveyed', 'effort-missing': 'no effort', 'date-as-text': 'date as text' };
+    let open = 0;
+    let settled = 0;
+    for (const f of findings.filter((x) => x.field && words[x.code])) {
+      for (const id of f.recordIds) {
+        const c = cleanedOf(id);
+        if (c.excluded !== undefined) continue;
+        const untouched = c.fields[f.field!] === rawOf(id).fields[f.field!];
+        // Still as imported: the flag is open; edited by the recorded cleaning: dealt with, not listed.
+        if (untouched) open++;
+        else settled++;
+        const listed = String(placeOf(id)[flags] ?? '');
+        if (untouched) expect(listed, `${f.code} on ${id}`).toContain(words[f.code]);
+        else expect(listed, `${f.code} on ${id}`).not.toContain(words[f.code]);
+      }
+    }
+    expect(open).toBeGreaterThan(0);
+    expect(settled).toBeGreaterThan(0);
+    expect(rec.table.rows.some((r) => /effort-missing|count-lower-bound/.test(String(r[flags] ?? '')))).toBe(false);
+    // The planted repeated rows are left out by the recorded cleaning: their "repeated row" flag is dealt with.
+    const repeated = findings.filter((f) => f.code === 'repeated-visit').flatMap((f) => f.recordIds);
+    const leftOut = repeated.filter((id) => d.analysis.cleaned.find((r) => r.id === id)?.excluded !== undefined);
+    expect(leftOut.length).toBeGreaterThan(0);
+    for (const id of leftOut) expect(String(placeOf(id)[flags] ?? '')).not.toContain('repeated row');
+  });
+
   it('Analysis table: the same rows and numbers the model builder gets, units in the headers', () => {
     const t = d.analysis.analysis.table;
     const sheet = sheetOf(d.exported, 'analysis');

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
-import { flagLabel } from '../../src-renderer/src/views/records/flags';
+import { flagLabel } from '@shared/cleaning/finding-flags';
 import { pageCodes } from '../../src-main/services/record-checks';
 
 // Every record-level finding code the shared validation can emit reaches the

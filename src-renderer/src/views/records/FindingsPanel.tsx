@@ -1,7 +1,7 @@
 import { useMemo, useState } from 'react';
 import type { RecordFinding } from '@shared/host/contract';
 import { VirtualList } from '../../components/VirtualList';
-import { flagLabel } from './flags';
+import { flagLabel } from '@shared/cleaning/finding-flags';
 import { describePlace } from './record-set';
 import { showValue } from './describe-entry';
 import type { ModelOutliers } from '../models/diagnostics/model-outliers';

@@ -13,7 +13,7 @@ import {
 import type { CleaningRecord } from '@shared/cleaning/record';
 import { recordsGridTheme } from './grid-theme';
 import { isEdited } from './cleaned';
-import { flagLabel, settledFor } from './flags';
+import { flagLabel, settledFor } from '@shared/cleaning/finding-flags';
 import { isFiltering, recordPredicate, type RecordFilter } from './record-filter';
 import type { RecordSet } from './record-set';
 import { outlierOf, outlierText, probabilityText, type ModelOutliers } from '../models/diagnostics/model-outliers';

@@ -10,7 +10,7 @@ import { AuditLog } from './AuditLog';
 import { ConvertEffortDialog } from './ConvertEffortDialog';
 import { buildRecordSet, describePlace } from './record-set';
 import { cleanRecords } from './cleaned';
-import { findingSettled, flagLabels } from './flags';
+import { findingSettled, flagLabels } from '@shared/cleaning/finding-flags';
 import { distinctValues, linkedFilter, noFilter, type RecordFilter } from './record-filter';
 import { takeRecordLink } from '../models/diagnostics/record-link';
 import { LinkedRecordsNote } from '../models/diagnostics/LinkedRecordsNote';

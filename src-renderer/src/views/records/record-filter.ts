@@ -1,6 +1,6 @@
 import type { CleaningRecord } from '@shared/cleaning/record';
 import type { RecordSet } from './record-set';
-import { settledFor } from './flags';
+import { settledFor } from '@shared/cleaning/finding-flags';
 import type { RecordLink } from '../models/diagnostics/record-link';
 import { recordMatches } from '../models/diagnostics/record-key';
 import { outlierOf, type ModelOutliers } from '../models/diagnostics/model-outliers';

@@ -1,5 +1,6 @@
-import type { CleaningRecord } from '@shared/cleaning/record';
-import type { RecordFinding } from '@shared/host/contract';
+/** The Records stage's flags: the chip words for each finding code, and when a finding counts as dealt with. Shared by the screen and the cleaned-data export. */
+import type { CleaningRecord } from './record';
+import type { RecordFinding } from '../host/contract';
 
 /** Short chip wording for each finding code, in our own words. */
 export const flagLabels: Record<string, string> = {
