@@ -1,3 +1,4 @@
+import { fixedAnalysisColumns } from '../import/aggregate';
 import { covariateName } from './site-attributes';
 
 /**
@@ -7,13 +8,8 @@ import { covariateName } from './site-attributes';
  * `count`, or a site covariate from the site list) gets `_visit` added, and
  * a repeat after that a number, so no column is ever written twice.
  */
-const fixedColumns = [
-  'site', 'season', 'species', 'count', 'visits', 'effort', 'effort_h', 'effort_km', 'effort_trap_nights', 'effort_visits', 'effort_points',
-  'log_effort', 'area_ha', 'log_area', 'offset', 'at_least_records', 'approximate_records', 'present_uncounted',
-];
-
 export function visitCovariateColumns(names: readonly string[], siteCovariates: readonly string[] = []): { name: string; column: string }[] {
-  const taken = new Set([...fixedColumns, ...siteCovariates]);
+  const taken = new Set([...fixedAnalysisColumns, ...siteCovariates]);
   return names.map((name) => {
     const plain = covariateName(name);
     let column = taken.has(plain) ? `${plain}_visit` : plain;

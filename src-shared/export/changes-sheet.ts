@@ -11,7 +11,8 @@ import { entryStatuses } from '../cleaning/edit-log';
 import type { CleaningRecord } from '../cleaning/record';
 import type { Cell } from '../report/model';
 import { cellOf, exportSheet, type ExportSheet } from './export-model';
-import { placeWords, type RecordPlace } from './record-places';
+import { describePlace } from '../cleaning/place-words';
+import type { RecordPlace } from './record-places';
 
 export interface ChangesSheetInput {
   readonly log: EditLog;
@@ -30,7 +31,7 @@ export function changesSheet(input: ChangesSheetInput): ExportSheet {
     record: (id: string) => rawById.get(id),
     place: (id: string) => {
       const p = input.places.get(id);
-      return p ? placeWords(p) : undefined;
+      return p ? describePlace(p) : undefined;
     },
     file: (id: string) => input.places.get(id)?.file,
     entry: (id: string) => entries.get(id),

@@ -18,8 +18,3 @@ export function recordPlaces(sources: readonly LoadedSource[]): Map<string, Reco
   }
   return out;
 }
-
-/** "Counts, row 23, col. G": the Records stage's wording of a place. */
-export function placeWords(p: RecordPlace): string {
-  return [p.sheet, `row ${p.row}`, p.column ? `col. ${p.column}` : ''].filter(Boolean).join(', ');
-}

@@ -53,6 +53,12 @@ export interface AnalysisTable {
 
 const effortColumnNames: Record<string, string> = { hours: 'effort_h', km: 'effort_km', 'trap-nights': 'effort_trap_nights', visits: 'effort_visits', points: 'effort_points' };
 
+/** Every column name aggregateRecords may write before the covariates (so that a covariate never takes one of them). */
+export const fixedAnalysisColumns: readonly string[] = [
+  'site', 'season', 'species', 'count', 'visits', 'effort', ...Object.values(effortColumnNames),
+  'log_effort', 'area_ha', 'log_area', 'offset', 'at_least_records', 'approximate_records', 'present_uncounted',
+];
+
 export function effortColumnName(unit: string): string {
   return effortColumnNames[unit] ?? 'effort';
 }

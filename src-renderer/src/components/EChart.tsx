@@ -4,7 +4,7 @@ import type { EChartsOption } from 'echarts';
 import { chartSummary } from '@shared/charts/chart-summary';
 import { chartLayout, layoutChart, USUAL_GRID_TOP } from '@shared/charts/chart-layout';
 import { measureOnCanvas } from './canvas-text';
-import { chartPoints, type ChartPoint } from './chart-points';
+import { chartPoints, seriesList, type ChartPoint } from './chart-points';
 import { nextPoint, pointOrder } from './point-keys';
 
 /**
@@ -41,13 +41,8 @@ export interface ChartKeyboard {
 }
 export type ChartBox = HTMLDivElement & { echartsInstance?: echarts.ECharts };
 
-function seriesOf(option: EChartsOption): { id?: unknown; data?: unknown }[] {
-  const s = option.series;
-  return Array.isArray(s) ? (s as { id?: unknown; data?: unknown }[]) : s ? [s as { id?: unknown; data?: unknown }] : [];
-}
-
 function pointCount(option: EChartsOption): number {
-  return seriesOf(option).reduce((n, s) => n + (Array.isArray(s.data) ? s.data.length : 0), 0);
+  return seriesList(option).reduce((n, s) => n + (Array.isArray(s.data) ? s.data.length : 0), 0);
 }
 
 function saveHref(href: string, fileName: string): void {
@@ -199,7 +194,7 @@ export function EChart({ option, fileName, testId, height = 340, onPointClick, h
     setTimeout(() => URL.revokeObjectURL(url), 10_000);
   };
 
-  const ids = seriesOf(option).map((s) => String(s.id ?? ''));
+  const ids = seriesList(option).map((s) => String(s.id ?? ''));
   const title = String((option.title as { text?: string } | undefined)?.text ?? 'Chart');
   const chosen = active !== null ? points[active] : undefined;
   const walking = Boolean(keyboard && points.length);

@@ -25,7 +25,8 @@ export interface ChartPoint {
 
 type SeriesLike = { id?: unknown; data?: unknown };
 
-function seriesList(option: EChartsOption): SeriesLike[] {
+/** The option's series as a list (echarts takes one series or several). */
+export function seriesList(option: EChartsOption): SeriesLike[] {
   const s = option.series;
   return Array.isArray(s) ? (s as SeriesLike[]) : s ? [s as SeriesLike] : [];
 }

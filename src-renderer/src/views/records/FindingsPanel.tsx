@@ -2,7 +2,7 @@ import { useMemo, useState } from 'react';
 import type { RecordFinding } from '@shared/host/contract';
 import { VirtualList } from '../../components/VirtualList';
 import { flagLabel } from '@shared/cleaning/finding-flags';
-import { describePlace } from './record-set';
+import { describePlace } from '@shared/cleaning/place-words';
 import { showValue } from './describe-entry';
 import type { ModelOutliers } from '../models/diagnostics/model-outliers';
 import type { RecordLink } from '../models/diagnostics/record-link';

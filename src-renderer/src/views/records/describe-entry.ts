@@ -1,6 +1,7 @@
 import { describeEntry as describeWith, type EntryText } from '@shared/cleaning/describe-entry';
 import type { EditEntry } from '@shared/cleaning/edit-entry';
-import { describePlace, type RecordSet } from './record-set';
+import { describePlace } from '@shared/cleaning/place-words';
+import type { RecordSet } from './record-set';
 
 /** One log entry as the audit panel shows it, in the words the report uses too (src-shared/cleaning/describe-entry.ts). */
 export { fieldNames, kindWords, showValue, statusWords, type EntryText } from '@shared/cleaning/describe-entry';

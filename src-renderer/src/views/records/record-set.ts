@@ -76,14 +76,3 @@ export function buildRecordSet(sources: readonly LoadedSource[]): RecordSet {
   });
   return { raw, rawById: new Map(raw.map((x) => [x.id, x])), places, findings, findingsOf, fieldColumns, visitOf, effortUnit: commonEffortUnit(sources), covariates };
 }
-
-/** "Counts, row 23, col. G" (with the file when asked). */
-export function describePlace(p: { fileName?: string; file?: string; sheet?: string; row?: number; column?: string }, withFile = false): string {
-  const parts: string[] = [];
-  const file = p.fileName ?? p.file;
-  if (withFile && file) parts.push(file);
-  if (p.sheet) parts.push(p.sheet);
-  if (p.row !== undefined) parts.push(`row ${p.row}`);
-  if (p.column) parts.push(`col. ${p.column}`);
-  return parts.join(', ');
-}
