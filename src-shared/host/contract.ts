@@ -294,7 +294,7 @@ export const hostContract = {
   /** Writes a report document as one PDF, one HTML and one XLSX file named `stem` into `folder`. */
   'report:write': {
     input: z.object({ document: reportDocumentSchema, folder: filePath, stem: reportStem }).strict(),
-    output: z.object({ pdf: z.string(), html: z.string(), xlsx: z.string() }),
+    output: z.object({ pdf: z.string(), html: z.string(), xlsx: z.string(), files: z.array(z.object({ name: z.string(), sha256: z.string() })) }),
   },
   /** Writes the cleaned-data export to `path`: .xlsx every table, .csv one (`table`, default the analysis table). */
   'export:write': {

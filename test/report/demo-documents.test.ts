@@ -7,6 +7,7 @@
  * files are left in test-output/report/ to look at.
  */
 import { execFileSync } from 'node:child_process';
+import { createHash } from 'node:crypto';
 import { mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
@@ -36,6 +37,13 @@ const hasSoffice = (() => {
 })();
 
 describe('the demo report', () => {
+  it('names each file written with the SHA-256 of the bytes on disk (node:crypto)', () => {
+    expect(written.files.map((f) => f.name)).toEqual(['demo-report.pdf', 'demo-report.html', 'demo-report.xlsx']);
+    for (const [f, path] of written.files.map((f, i) => [f, [written.pdf, written.html, written.xlsx][i]] as const)) {
+      expect(f.sha256).toBe(createHash('sha256').update(readFileSync(path)).digest('hex'));
+    }
+  });
+
   it('recovers each species’ true trend within its 95% limits (the simulation’s known rates, resources/demo/truth.json)', async () => {
     const { groups } = await demoReport();
     for (const s of DEMO_TRUTH.species) {

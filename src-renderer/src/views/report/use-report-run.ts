@@ -74,16 +74,15 @@ export function useReportRun(onRecorded: (entry: ReportHistoryEntry) => void = (
       const { document, record, sinceLast } = await programmeReportInWorker(plan, { signal: controller.signal, onProgress: (progress) => setPhase((p) => (p.kind === 'running' ? { ...p, progress } : p)) });
       if (controller.signal.aborted) throw Object.assign(new Error('cancelled'), { name: 'FitCancelled' });
       setPhase({ kind: 'writing', species });
-      const paths = await call('report:write', { document, folder, stem });
-      // The files are written whatever happens next; a file that cannot be read back is recorded without its SHA-256.
-      const files = await Promise.all([paths.pdf, paths.html, paths.xlsx].map((path) => call('file:fingerprint', { path }))).catch(() => null);
+      // The main process gives each file's SHA-256 from the bytes it wrote.
+      const { files, ...paths } = await call('report:write', { document, folder, stem });
       // Another project opened meanwhile (reset): the entry belongs to the one that was closed, so it is not added.
-      if (!controller.signal.aborted) recorded.current(historyEntry(record, files ?? []));
+      if (!controller.signal.aborted) recorded.current(historyEntry(record, files));
       const verdict = sinceLast?.verdict ?? null;
       setWritten({ ...paths, species, madeAt: document.createdAt, verdict });
       setNote({
         kind: verdict === 'differs' ? 'problem' : 'info',
-        text: `The report of ${species.length === 1 ? species[0] : `${species.length} species`} was written to ${folder} and added to the project's report history (save the project to keep it)${files ? '' : ', without the SHA-256 of its files, which could not be read back'}.${verdictSentence(verdict, sinceLast?.differences.length ?? 0)}`,
+        text: `The report of ${species.length === 1 ? species[0] : `${species.length} species`} was written to ${folder} and added to the project's report history (save the project to keep it).${verdictSentence(verdict, sinceLast?.differences.length ?? 0)}`,
       });
     } catch (err) {
       if (isCancel(err)) setNote({ kind: 'info', text: 'The report was cancelled before any file was written; nothing in the folder changed.' });
